@@ -1,0 +1,31 @@
+import type { Metadata } from "next";
+import localFont from "next/font/local";
+import "./globals.css";
+
+const manrope = localFont({
+  src: [
+    { path: "./fonts/manrope-latin-wght-normal.woff2", weight: "200 800", style: "normal" },
+    { path: "./fonts/manrope-latin-ext-wght-normal.woff2", weight: "200 800", style: "normal" },
+  ],
+  variable: "--font-manrope",
+  display: "swap",
+});
+const jetbrains = localFont({
+  src: "./fonts/jetbrains-mono-latin-wght-normal.woff2",
+  variable: "--font-jetbrains",
+  weight: "100 800",
+  display: "swap",
+});
+
+export const metadata: Metadata = {
+  title: { default: "Vicinal", template: "%s · Vicinal" },
+  description: "Collaborative labelling with nearest-neighbour suggestions.",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${manrope.variable} ${jetbrains.variable}`}>
+      <body className="min-h-screen font-sans antialiased">{children}</body>
+    </html>
+  );
+}

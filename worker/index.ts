@@ -1,0 +1,33 @@
+// The background worker: a pg-boss consumer. Start more of these processes to scale out.
+import { createWorkerBoss } from "@/lib/jobs/boss";
+import { type JobName, jobSchemas } from "@/lib/jobs/queues";
+import { handlers } from "./registry";
+
+const concurrency: Partial<Record<JobName, number>> = { mail: 4, import: 1, edition: 1, "pool-rank": 1, tuning: 1 };
+
+async function main() {
+  const boss = await createWorkerBoss();
+  for (const [name, handler] of Object.entries(handlers) as Array<[JobName, (data: unknown) => Promise<void>]>) {
+    // pg-boss 10 runs one fetch loop per work() call: call it n times for n jobs at once.
+    for (let i = 0; i < (concurrency[name] ?? 1); i += 1) {
+      await boss.work(name, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async (jobs) => {
+        for (const job of jobs) {
+          const data = jobSchemas[name].parse(job.data);
+          await handler(data);
+        }
+      });
+    }
+  }
+  console.log(`[worker] ready: ${Object.keys(handlers).join(", ")}`);
+  const stop = async () => {
+    await boss.stop({ graceful: true, timeout: 10_000 }).catch(() => undefined);
+    process.exit(0);
+  };
+  process.on("SIGTERM", stop);
+  process.on("SIGINT", stop);
+}
+
+main().catch((error) => {
+  console.error("[worker] failed to start", error);
+  process.exit(1);
+});
