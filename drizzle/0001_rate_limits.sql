@@ -1,4 +1,4 @@
-CREATE TABLE "rate_limits" (
+CREATE TABLE IF NOT EXISTS "rate_limits" (
 	"key" varchar(255) PRIMARY KEY NOT NULL,
 	"points" integer DEFAULT 0 NOT NULL,
 	"expire" bigint
