@@ -4,7 +4,7 @@ import { authConfig } from "@/auth.config";
 
 const { auth } = NextAuth(authConfig);
 
-const publicPrefixes = ["/sign-in", "/forgot-password", "/reset-password", "/invitations", "/api"];
+const publicPrefixes = ["/sign-in", "/forgot-password", "/reset-password", "/invitations"];
 
 /** Only redirects signed-out visitors; every handler checks the caller and its role again. */
 export default auth((req) => {
@@ -16,5 +16,5 @@ export default auth((req) => {
 });
 
 export const config = {
-  matcher: ["/((?!_next/static|_next/image|favicon.ico|fonts/).*)"],
+  matcher: ["/((?!api/|_next/static|_next/image|favicon.ico|fonts/).*)"],
 };

@@ -36,7 +36,14 @@ try {
   const { env: base } = await startServices(profile, { fresh: true });
   const reports = path.join(profile.dataDir, "reports");
   fs.mkdirSync(reports, { recursive: true });
-  const env = { ...base, VICINAL_TEST_APP_URL: `http://localhost:${profile.appPort}`, VICINAL_CHROMIUM: chromium, VICINAL_TEST_DATA: profile.dataDir };
+  fs.mkdirSync(path.join(profile.dataDir, "screenshots"), { recursive: true });
+  if (!only.length || args.includes("--typecheck")) {
+    log("type-checking (tsc --noEmit)…");
+    const tc = spawnSync(process.execPath, [path.join(root, "node_modules/typescript/bin/tsc"), "--noEmit", "-p", "."], { cwd: root, stdio: ["ignore", "inherit", "inherit"] });
+    if (tc.status === 0) totals.passed += 1;
+    else { totals.failed += 1; ok = false; }
+  }
+  const env = { ...base, VICINAL_SKIP_BUILD_TYPECHECK: "1", VICINAL_TEST_APP_URL: `http://localhost:${profile.appPort}`, VICINAL_CHROMIUM: chromium, VICINAL_TEST_DATA: profile.dataDir };
   const suites = [["unit", ["tests/unit"]], ["integration", ["tests/integration"]], ["e2e", ["tests/e2e"]]]
     .map(([name, paths]) => [name, only.length ? only.filter((o) => o.startsWith(paths[0])) : paths])
     .filter(([, paths]) => paths.length);

@@ -34,11 +34,12 @@ export const signInWithPassword = validatedAction(
 
 export const signInWithLink = validatedAction(z.object({ email, callbackUrl: safeCallback }), async ({ email, callbackUrl }) => {
   try {
-    await signIn("nodemailer", { email, redirectTo: callbackUrl });
+    await signIn("nodemailer", { email, redirectTo: callbackUrl, redirect: false });
   } catch (error) {
     if (error instanceof AuthError) return { error: "The sign-in link could not be sent. Try again in a moment." };
     throw error;
   }
+  redirect("/sign-in/check-email");
 });
 
 export const requestReset = validatedAction(z.object({ email }), async ({ email }) => {

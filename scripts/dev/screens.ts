@@ -8,7 +8,8 @@ async function main() {
   if (email !== "-") await signIn(page, base, email, "vicinal-demo-2026");
   for (const p of paths) {
     await page.goto(`${base}${p}`);
-    await page.waitForLoadState("networkidle");
+    await page.waitForLoadState("load");
+    await page.waitForTimeout(1200);
     const name = `${email.split("@")[0]}${p.replace(/[^a-z0-9]+/gi, "_")}`;
     await page.screenshot({ path: `.data/screenshots/${name}.png`, fullPage: true });
     console.log(name);

@@ -45,7 +45,7 @@ type MailDevMessage = { id: string; subject: string; text: string; to: Array<{ a
 export async function waitForMail(to: string, subject: RegExp, timeoutMs = 20_000): Promise<MailDevMessage> {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
-    const res = await fetch(`${mailUrl}/email`);
+    const res = await fetch(`${mailUrl}/api/email`);
     const list = (await res.json()) as MailDevMessage[];
     const hit = list.reverse().find((m) => m.to.some((t) => t.address.toLowerCase() === to.toLowerCase()) && subject.test(m.subject));
     if (hit) return hit;
