@@ -20,8 +20,8 @@ export function UsersPanel({ projects, selfId }: { projects: Array<{ id: number;
     setMsg(null);
     try {
       await apiFetch(`/api/v1/admin/users/${userId}`, { method: "PATCH", body });
-      setMsg({ tone: "success", text: done });
       await mutate();
+      setMsg({ tone: "success", text: done });
     } catch (err) {
       setMsg({ tone: "error", text: err instanceof ApiError ? err.message : "That did not work." });
     }

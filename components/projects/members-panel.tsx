@@ -27,8 +27,8 @@ export function MembersPanel({ projectId, canManage, selfId }: { projectId: numb
     setMsg(null);
     try {
       await fn();
-      setMsg({ tone: "success", text: success });
       await mutate();
+      setMsg({ tone: "success", text: success });
     } catch (err) {
       setMsg({ tone: "error", text: err instanceof ApiError ? err.message : "That did not work. Check your connection." });
       if (err instanceof ApiError) setFieldError(err.fieldError("email"));
