@@ -16,7 +16,10 @@ const nextConfig: NextConfig = {
   typescript: { ignoreBuildErrors: process.env.VICINAL_SKIP_BUILD_TYPECHECK === "1" },
   serverExternalPackages: ["hnswlib-node", "@node-rs/argon2", "pg-boss", "sharp", "pg-copy-streams", "rate-limiter-flexible"],
   async headers() {
-    return [{ source: "/:path*", headers: securityHeaders }];
+    return [
+      { source: "/:path*", headers: securityHeaders },
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: "default-src 'none'; frame-ancestors 'none'" }, { key: "Cache-Control", value: "no-store" }] },
+    ];
   },
 };
 

@@ -17,6 +17,9 @@ const jetbrains = localFont({
   display: "swap",
 });
 
+// Every page is rendered per request: the CSP nonce set in proxy.ts must reach Next's scripts.
+export const dynamic = "force-dynamic";
+
 export const metadata: Metadata = {
   title: { default: "Vicinal", template: "%s · Vicinal" },
   description: "Collaborative labelling with nearest-neighbour suggestions.",
