@@ -225,7 +225,8 @@ export const items = pgTable(
     vector: bytea("vector"),
     imageKey: text("image_key"),
     thumbKey: text("thumb_key"),
-    importId: uuid("import_id").references(() => imports.id, { onDelete: "set null" }),
+    // No foreign key: it costs ~6 s per million imported rows, and an import row is never deleted before its items.
+    importId: uuid("import_id"),
     seq: bigserial("seq", { mode: "number" }).notNull(),
     randomKey: real("random_key").notNull().default(sql`random()`),
     isControl: boolean("is_control").notNull().default(false),
@@ -254,10 +255,12 @@ export const items = pgTable(
     index("items_queue_entropy_idx").on(t.projectId, t.scoreEntropy),
     index("items_queue_random_idx").on(t.projectId, t.randomKey),
     index("items_queue_seq_idx").on(t.projectId, t.seq),
-    index("items_import_id_idx").on(t.importId),
-    index("items_final_class_idx").on(t.projectId, t.finalClassId),
-    index("items_known_class_id_idx").on(t.knownClassId),
-    index("items_prior_class_id_idx").on(t.priorClassId),
+    // Partial where the column is empty at import time, so a bulk import does not pay for them.
+    index("items_import_id_idx").on(t.importId).where(sql`${t.importId} is not null`),
+    index("items_final_class_idx").on(t.projectId, t.finalClassId).where(sql`${t.finalClassId} is not null`),
+    index("items_known_class_id_idx").on(t.knownClassId).where(sql`${t.knownClassId} is not null`),
+    index("items_prior_class_id_idx").on(t.priorClassId).where(sql`${t.priorClassId} is not null`),
+    index("items_pool_share_idx").on(t.projectId, t.poolTopShare, t.id),
   ],
 );
 

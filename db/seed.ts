@@ -50,7 +50,7 @@ async function main() {
   }
   const rand = mulberry32(20261201);
   const passwordHash = await hashPassword(demoPassword);
-  await db.transaction(async (tx) => {
+  const projectId = await db.transaction(async (tx) => {
     const u = await tx
       .insert(users)
       .values(demoUsers.map((d) => ({ email: d.email, name: d.name, isAdmin: d.isAdmin, passwordHash, emailVerified: new Date() })))
@@ -115,7 +115,7 @@ async function main() {
       const noisy = (p: number) => (rand() < p ? Math.max(0, Math.min(grades.length - 1, g + (rand() < 0.5 ? -1 : 1))) : g);
       const a = noisy(0.14);
       const b = noisy(0.18);
-      const at = new Date(now - (220 - i) * 6 * 60 * 1000);
+      const at = new Date(now - 86_400_000 - (220 - i) * 85 * 60 * 1000);
       labelRows.push({ projectId: project.id, itemId: inserted[i].id, annotatorId: ana, classId: classes[a].id, clientSubmissionId: crypto.randomUUID(), createdAt: at });
       labelRows.push({ projectId: project.id, itemId: inserted[i].id, annotatorId: ben, classId: classes[b].id, clientSubmissionId: crypto.randomUUID(), createdAt: new Date(at.getTime() + 90_000) });
       if (a === b) {
@@ -126,8 +126,12 @@ async function main() {
       }
     }
     await tx.insert(labels).values(labelRows);
+    return project.id;
   });
-  console.error("[seed] demo project, users and labels created");
+  // Vote shares of the unlabelled pool, so the Desk's uncertainty order works from the first item.
+  const { runPoolRank } = await import("@/lib/suggest/pool-rank");
+  await runPoolRank(projectId);
+  console.error("[seed] demo project, users and labels created; pool ranked");
 }
 
 main()

@@ -9,6 +9,12 @@ type Entry = { href: string; label: string; needs: ProjectRole; group: "work" | 
 /** The project's screens, by the least role that opens each. */
 export const projectScreens: Entry[] = [
   { href: "", label: "Overview", needs: "viewer", group: "work" },
+  { href: "/desk", label: "Desk", needs: "annotator", group: "work" },
+  { href: "/disputes", label: "Disputes", needs: "reviewer", group: "work" },
+  { href: "/agreement", label: "Agreement", needs: "viewer", group: "quality" },
+  { href: "/tuning", label: "Tuning", needs: "owner", group: "quality" },
+  { href: "/doubts", label: "Doubts", needs: "owner", group: "quality" },
+  { href: "/map", label: "Map", needs: "viewer", group: "quality" },
   { href: "/items", label: "Items", needs: "viewer", group: "data" },
   { href: "/import", label: "Import", needs: "owner", group: "data" },
   { href: "/members", label: "Members", needs: "viewer", group: "setup" },

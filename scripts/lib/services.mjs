@@ -145,7 +145,7 @@ export async function startPostgres({ dataDir, port, database }) {
   if (!(await freePortCheck(port))) throw new Error(`port ${port} (PostgreSQL) is in use; stop the other process or set a different port`);
   const logFile = path.join(dataDir, "postgres.log");
   if (asRoot && !fs.existsSync(logFile)) { fs.writeFileSync(logFile, ""); run("chown", ["postgres", logFile]); }
-  run(...wrap(path.join(bin, "pg_ctl"), ["-D", pgData, "-l", logFile, "-o", `-k ${sock} -p ${port} -c listen_addresses=127.0.0.1 -c max_connections=200 -c shared_buffers=256MB -c fsync=on`, "-w", "-t", "60", "start"]));
+  run(...wrap(path.join(bin, "pg_ctl"), ["-D", pgData, "-l", logFile, "-o", `-k ${sock} -p ${port} -c listen_addresses=127.0.0.1 -c max_connections=200 -c shared_buffers=256MB -c max_wal_size=4GB`, "-w", "-t", "60", "start"]));
   cleanups.push(() => {
     spawnSync(...wrap(path.join(bin, "pg_ctl"), ["-D", pgData, "-m", "fast", "-w", "stop"]), { stdio: "ignore" });
   });

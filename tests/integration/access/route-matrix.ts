@@ -45,6 +45,71 @@ export const matrix: Record<string, Entry> = {
     call: async (w) => ({ path: `${p(w)}/invitations/${await w.makeInvitation()}` }),
   },
   "GET /api/v1/projects/[projectId]/audit": { need: "owner", call: (w) => ({ path: `${p(w)}/audit` }) },
+  "GET /api/v1/projects/[projectId]/agreement": { need: "viewer", call: (w) => ({ path: `${p(w)}/agreement` }) },
+  // Items in
+  "POST /api/v1/projects/[projectId]/uploads": { need: "owner", call: (w) => ({ path: `${p(w)}/uploads`, body: { fileName: "matrix.csv", size: 20, contentType: "text/csv" } }) },
+  "POST /api/v1/projects/[projectId]/uploads/[uploadId]/complete": { need: "owner", call: async (w) => ({ path: `${p(w)}/uploads/${await w.uploadCsv(false)}/complete`, body: {} }) },
+  "POST /api/v1/projects/[projectId]/imports/preview": { need: "owner", call: async (w) => ({ path: `${p(w)}/imports/preview`, body: { uploadIds: [await w.uploadCsv()] } }) },
+  "GET /api/v1/projects/[projectId]/imports": { need: "owner", call: (w) => ({ path: `${p(w)}/imports` }) },
+  "POST /api/v1/projects/[projectId]/imports": {
+    need: "owner",
+    call: async (w) => ({ path: `${p(w)}/imports`, body: { uploadIds: [await w.uploadCsv()], format: "csv", columns: [{ name: "id", role: "id" }, { name: "a", role: "numeric" }, { name: "b", role: "numeric" }] } }),
+  },
+  "GET /api/v1/projects/[projectId]/imports/[importId]": { need: "owner", call: async (w) => ({ path: `${p(w)}/imports/${await w.startImport()}` }) },
+  "POST /api/v1/projects/[projectId]/imports/[importId]/cancel": { need: "owner", call: async (w) => ({ path: `${p(w)}/imports/${await w.startImport()}/cancel`, body: {} }) },
+  "GET /api/v1/projects/[projectId]/imports/[importId]/errors": {
+    need: "owner",
+    call: async (w) => ({ path: `${p(w)}/imports/${await w.failedImport()}/errors?format=json` }),
+  },
+  "GET /api/v1/projects/[projectId]/items": { need: "viewer", call: (w) => ({ path: `${p(w)}/items?limit=5` }) },
+  "POST /api/v1/projects/[projectId]/items": {
+    need: "owner",
+    call: (w) => ({ path: `${p(w)}/items`, body: { items: [{ id: `batch-${Math.random().toString(36).slice(2, 9)}`, a: 1, b: 2 }] } }),
+  },
+  "GET /api/v1/projects/[projectId]/items/[itemId]": { need: "viewer", call: (w) => ({ path: `${p(w)}/items/${w.sampleItem.id}` }) },
+  // The neighbour engine
+  "GET /api/v1/projects/[projectId]/items/[itemId]/suggestion": { need: "annotator", call: (w) => ({ path: `${p(w)}/items/${w.sampleItem.id}/suggestion` }) },
+  "GET /api/v1/projects/[projectId]/tuning": { need: "owner", call: (w) => ({ path: `${p(w)}/tuning` }) },
+  "POST /api/v1/projects/[projectId]/tuning": { need: "owner", call: (w) => ({ path: `${p(w)}/tuning`, body: {} }) },
+  "GET /api/v1/projects/[projectId]/doubts": { need: "owner", call: (w) => ({ path: `${p(w)}/doubts` }) },
+  "POST /api/v1/projects/[projectId]/doubts": { need: "owner", call: (w) => ({ path: `${p(w)}/doubts`, body: {} }) },
+  "POST /api/v1/projects/[projectId]/doubts/[itemId]/dispute": { need: "owner", call: async (w) => ({ path: `${p(w)}/doubts/${(await w.freshItem(1)).id}/dispute`, body: {} }) },
+  "GET /api/v1/projects/[projectId]/map": { need: "viewer", call: (w) => ({ path: `${p(w)}/map` }) },
+  "GET /api/v1/projects/[projectId]/dashboard": { need: "viewer", call: (w) => ({ path: `${p(w)}/dashboard` }) },
+  "GET /api/v1/projects/[projectId]/dashboard/agreement": { need: "viewer", call: (w) => ({ path: `${p(w)}/dashboard/agreement` }) },
+  // The labelling loop
+  "GET /api/v1/projects/[projectId]/desk/next": { need: "annotator", call: (w) => ({ path: `${p(w)}/desk/next` }) },
+  "POST /api/v1/projects/[projectId]/desk/next": { need: "annotator", call: (w) => ({ path: `${p(w)}/desk/next`, body: { exclude: [] } }) },
+  "GET /api/v1/projects/[projectId]/desk/stats": { need: "annotator", call: (w) => ({ path: `${p(w)}/desk/stats` }) },
+  "POST /api/v1/projects/[projectId]/items/[itemId]/labels": {
+    need: "annotator",
+    call: async (w) => ({ path: `${p(w)}/items/${(await w.freshItem()).id}/labels`, body: { clientSubmissionId: crypto.randomUUID(), classId: w.classes[0].id, via: "choose" } }),
+  },
+  "DELETE /api/v1/projects/[projectId]/items/[itemId]/labels": {
+    need: "annotator",
+    call: async (w, role) => {
+      const item = await w.freshItem();
+      const auth = await w.auth(role);
+      // Label first (as the same caller) so there is something to undo within the window.
+      await fetch(`${process.env.VICINAL_TEST_APP_URL}${p(w)}/items/${item.id}/labels`, {
+        method: "POST",
+        headers: { "content-type": "application/json", ...(auth.token ? { authorization: `Bearer ${auth.token}` } : {}) },
+        body: JSON.stringify({ clientSubmissionId: crypto.randomUUID(), classId: w.classes[1].id }),
+      });
+      return { path: `${p(w)}/items/${item.id}/labels` };
+    },
+  },
+  "POST /api/v1/projects/[projectId]/items/[itemId]/flags": {
+    need: "annotator",
+    call: async (w) => ({ path: `${p(w)}/items/${(await w.freshItem()).id}/flags`, body: { kind: "flag", comment: "cannot tell from these readings" } }),
+  },
+  "GET /api/v1/projects/[projectId]/labels": { need: "viewer", call: (w) => ({ path: `${p(w)}/labels` }) },
+  "GET /api/v1/projects/[projectId]/disputes": { need: "reviewer", call: (w) => ({ path: `${p(w)}/disputes` }) },
+  "GET /api/v1/projects/[projectId]/disputes/[disputeId]": { need: "reviewer", call: async (w) => ({ path: `${p(w)}/disputes/${(await w.freshDispute()).dispute.id}` }) },
+  "POST /api/v1/projects/[projectId]/disputes/[disputeId]/ruling": {
+    need: "reviewer",
+    call: async (w) => ({ path: `${p(w)}/disputes/${(await w.freshDispute()).dispute.id}/ruling`, body: { classId: w.classes[0].id, reason: "matches the control readings" } }),
+  },
   "GET /api/v1/tokens": { need: "user", call: () => ({ path: "/api/v1/tokens" }) },
   "POST /api/v1/tokens": { need: "user", sessionOnly: true, call: () => ({ path: "/api/v1/tokens", body: { name: "matrix" } }), note: "tokens cannot mint tokens: 403 through a token" },
   "DELETE /api/v1/tokens/[tokenId]": { need: "user", call: async (w, role) => ({ path: `/api/v1/tokens/${await w.freshTokenId(role)}` }), note: "a caller's own fresh token; other users' tokens are 404 (separate test)" },
