@@ -2,6 +2,7 @@ import type { JobData, JobName } from "@/lib/jobs/queues";
 import { handleAgreement } from "./jobs/agreement";
 import { handleDisputeDigest } from "./jobs/dispute-digest";
 import { handleDoubts } from "./jobs/doubts";
+import { handleEdition } from "./jobs/edition";
 import { handleImport } from "./jobs/import";
 import { handleMail } from "./jobs/mail";
 import { handleMap } from "./jobs/map";
@@ -14,6 +15,7 @@ type Handlers = { [N in JobName]?: (data: JobData<N>) => Promise<void> };
 export const handlers: Handlers = {
   mail: handleMail,
   import: handleImport,
+  edition: handleEdition,
   agreement: handleAgreement,
   "dispute-digest": handleDisputeDigest,
   "pool-rank": handlePoolRank,

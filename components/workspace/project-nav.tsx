@@ -17,6 +17,7 @@ export const projectScreens: Entry[] = [
   { href: "/map", label: "Map", needs: "viewer", group: "quality" },
   { href: "/items", label: "Items", needs: "viewer", group: "data" },
   { href: "/import", label: "Import", needs: "owner", group: "data" },
+  { href: "/editions", label: "Editions", needs: "viewer", group: "data" },
   { href: "/members", label: "Members", needs: "viewer", group: "setup" },
   { href: "/settings", label: "Settings", needs: "owner", group: "setup" },
   { href: "/audit", label: "Audit trail", needs: "owner", group: "setup" },

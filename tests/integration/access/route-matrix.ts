@@ -77,6 +77,13 @@ export const matrix: Record<string, Entry> = {
   "GET /api/v1/projects/[projectId]/map": { need: "viewer", call: (w) => ({ path: `${p(w)}/map` }) },
   "GET /api/v1/projects/[projectId]/dashboard": { need: "viewer", call: (w) => ({ path: `${p(w)}/dashboard` }) },
   "GET /api/v1/projects/[projectId]/dashboard/agreement": { need: "viewer", call: (w) => ({ path: `${p(w)}/dashboard/agreement` }) },
+  // Editions
+  "GET /api/v1/projects/[projectId]/editions": { need: "viewer", call: (w) => ({ path: `${p(w)}/editions` }) },
+  "POST /api/v1/projects/[projectId]/editions": { need: "owner", call: (w) => ({ path: `${p(w)}/editions`, body: {} }) },
+  "GET /api/v1/projects/[projectId]/editions/[editionId]": { need: "viewer", call: (w) => ({ path: `${p(w)}/editions/${w.publishedEdition}` }) },
+  "GET /api/v1/projects/[projectId]/editions/[editionId]/download": { need: "viewer", call: (w) => ({ path: `${p(w)}/editions/${w.publishedEdition}/download?format=csv` }) },
+  "GET /api/v1/projects/[projectId]/editions/[editionId]/diff": { need: "viewer", call: (w) => ({ path: `${p(w)}/editions/${w.publishedEdition}/diff?against=${w.publishedEdition}` }) },
+  "DELETE /api/v1/projects/[projectId]/editions/[editionId]": { need: "admin", call: async (w) => ({ path: `${p(w)}/editions/${await w.newEdition()}` }), note: "site admins only; the admin check comes before the project check" },
   // The labelling loop
   "GET /api/v1/projects/[projectId]/desk/next": { need: "annotator", call: (w) => ({ path: `${p(w)}/desk/next` }) },
   "POST /api/v1/projects/[projectId]/desk/next": { need: "annotator", call: (w) => ({ path: `${p(w)}/desk/next`, body: { exclude: [] } }) },
@@ -122,4 +129,5 @@ export const matrix: Record<string, Entry> = {
     },
   },
   "GET /api/v1/admin/audit": { need: "admin", call: () => ({ path: "/api/v1/admin/audit" }) },
+  "GET /api/v1/openapi.json": { need: "public", call: () => ({ path: "/api/v1/openapi.json" }) },
 };

@@ -1,6 +1,7 @@
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
-import { apiTokens, disputes, invitations, items, projectMembers, projects, type ProjectRole } from "@/db/schema";
+import { apiTokens, disputes, editions, invitations, items, projectMembers, projects, type ProjectRole } from "@/db/schema";
+import { publishEdition } from "@/lib/editions/run";
 import type { FeatureSchema } from "@/lib/projects/settings";
 import { packFloat32 } from "@/lib/random";
 import { hashSecret, newSecret } from "@/lib/auth/tokens";
@@ -40,6 +41,15 @@ export async function makeWorld() {
   };
   for (let i = 0; i < 12; i += 1) await freshItem(i);
   const sampleItem = await freshItem();
+  // Numbers far apart, so editions the API numbers (max + 1) never collide with these.
+  let editionNumber = 0;
+  const newEdition = async () => {
+    editionNumber += 1;
+    const [e] = await db.insert(editions).values({ projectId: base.project.id, number: editionNumber * 1000, status: "pending" }).returning();
+    return e.id;
+  };
+  const publishedEdition = await newEdition();
+  await publishEdition(publishedEdition);
   const users = base.users as Record<string, { id: string; email: string }>;
   return {
     ...base,
@@ -49,6 +59,8 @@ export async function makeWorld() {
     },
     freshItem,
     sampleItem,
+    publishedEdition,
+    newEdition,
     /** A small CSV uploaded by the owner through the presigned-URL path; `complete` marks it uploaded. */
     async uploadCsv(complete = true, text = "id,a,b\nu1,1,2\nu2,3,4\n") {
       const bytes = new TextEncoder().encode(text);
