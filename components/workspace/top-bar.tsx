@@ -13,6 +13,9 @@ export function TopBar({ user }: { user: { name: string | null; email: string; i
           <Link href="/projects" className="rounded px-3 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">
             Projects
           </Link>
+          <Link href="/api-docs" className="rounded px-3 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">
+            API
+          </Link>
           {user.isAdmin ? (
             <Link href="/admin" className="rounded px-3 py-1.5 text-ink-soft hover:bg-paper-sunk hover:text-ink">
               Admin
