@@ -91,7 +91,7 @@ export function DisputesBoard({ projectId, classes, columns }: { projectId: numb
         </p>
         {error ? <Notice tone="error">Disputes could not be loaded: {(error as Error).message}</Notice> : null}
         {data && !rows.length ? <EmptyState title={status === "open" ? "No open disputes" : "No rulings yet"}>{status === "open" ? "Nothing here matches; annotators agree so far." : "Rulings appear here once issued."}</EmptyState> : null}
-        <ul className="space-y-1.5">
+        <ul className="max-h-[calc(100vh-16rem)] space-y-1.5 overflow-y-auto pr-1" aria-label="Open disputes">
           {rows.map((d) => (
             <li key={d.id}>
               <button
