@@ -27,8 +27,12 @@ class RateLimited extends CredentialsSignin {
 
 const credentialsSchema = z.object({ email: z.string().trim().toLowerCase().email().max(320), password: z.string().min(1).max(200) });
 
+/** The address our own proxy saw (X-Real-IP, or the last X-Forwarded-For hop it appended); earlier hops are the client's to forge. */
 function clientAddress(request: Request): string {
-  return request.headers.get("x-forwarded-for")?.split(",")[0]?.trim() || request.headers.get("x-real-ip") || "local";
+  const real = request.headers.get("x-real-ip")?.trim();
+  if (real) return real;
+  const hops = request.headers.get("x-forwarded-for")?.split(",").map((h) => h.trim()).filter(Boolean) ?? [];
+  return hops[hops.length - 1] || "local";
 }
 
 const nextAuth = NextAuth({

@@ -101,7 +101,7 @@ export function ItemDrawer({ projectId, itemId, classes, onClose }: { projectId:
                   <li key={l.id} className={l.undoneAt ? "text-ink-faint line-through" : ""}>
                     <span className="mr-1.5 inline-block h-2.5 w-2.5 rounded-full" style={{ background: l.colour }} />
                     <strong>{l.className}</strong> by {l.annotator} · {when(l.createdAt)}
-                    {l.suggestionShown ? (l.tookSuggestion ? " · took the suggestion" : " · overrode the suggestion") : " · blind"}
+                    {l.suggestionShown ? (l.tookSuggestion ? " · took the suggestion" : " · overrode the suggestion") : " · no suggestion shown"}
                     {l.undoneAt ? ` · undone ${when(l.undoneAt)}` : ""}
                   </li>
                 ))}

@@ -42,8 +42,8 @@ export function Notice({ tone = "info", title, children }: { tone?: "info" | "ca
 export function PageHeader({ title, subtitle, actions }: { title: string; subtitle?: ReactNode; actions?: ReactNode }) {
   return (
     <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
-      <div>
-        <h1 className="text-2xl font-extrabold tracking-tight text-ink">{title}</h1>
+      <div className="min-w-0">
+        <h1 className="break-words text-2xl font-extrabold tracking-tight text-ink">{title}</h1>
         {subtitle ? <p className="mt-1 text-sm text-ink-soft">{subtitle}</p> : null}
       </div>
       {actions ? <div className="flex gap-2">{actions}</div> : null}

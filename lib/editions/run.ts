@@ -2,7 +2,7 @@
 import { mkdtemp, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { db, type Tx } from "@/db";
+import { db, pool, type Tx } from "@/db";
 import { getAgreementReportByProjectId } from "@/db/queries/agreement";
 import {
   completeEditionById,
@@ -165,6 +165,23 @@ async function buildInTransaction(tx: Tx, edition: Edition, dir: string, uploade
  * describe the same snapshot; rows stream through server-side cursors and temporary files.
  */
 export async function publishEdition(editionId: number): Promise<PublishResult> {
+  // One builder per edition: a session-level advisory lock on its own connection, taken before anything is
+  // written, so a second worker (a retry, a duplicate job) skips instead of racing the snapshot transaction.
+  const lock = await pool.connect();
+  try {
+    const got = await lock.query<{ ok: boolean }>("select pg_try_advisory_lock(hashtext('vicinal:edition-build'), $1) as ok", [editionId]);
+    if (!got.rows[0]?.ok) return { status: "skipped", reason: "another worker is building it" };
+    try {
+      return await buildLocked(editionId);
+    } finally {
+      await lock.query("select pg_advisory_unlock(hashtext('vicinal:edition-build'), $1)", [editionId]).catch(() => undefined);
+    }
+  } finally {
+    lock.release();
+  }
+}
+
+async function buildLocked(editionId: number): Promise<PublishResult> {
   const first = await findEditionForJob({ editionId });
   if (!first) return { status: "skipped", reason: "no such edition" };
   if (first.status === "succeeded") return { status: "skipped", reason: "already published" };

@@ -21,6 +21,8 @@ export function validatedAction<S extends z.ZodType>(schema: S, fn: (data: z.inf
       unstable_rethrow(error);
       if (error instanceof AppError) return { error: error.message, values };
       if (isDatabaseUnavailable(error)) return { error: "The database is unavailable; try again in a few seconds.", values };
+      const pgCode = (error as { code?: string })?.code;
+      if (pgCode === "22021" || pgCode === "22P05") return { error: "Text may not contain a NUL character (byte 0).", values };
       console.error("[action]", error);
       return { error: "Something went wrong on the server.", values };
     }

@@ -20,6 +20,13 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
       { status: 422 },
     );
   }
+  const pgCode = (error as { code?: string; cause?: { code?: string } })?.code ?? (error as { cause?: { code?: string } })?.cause?.code;
+  if (pgCode === "22021" || pgCode === "22P05") {
+    return NextResponse.json(
+      { error: { code: "bad_request:nul_character", message: "Text may not contain a NUL character (byte 0); remove it and send again." } },
+      { status: 400 },
+    );
+  }
   if (isDatabaseUnavailable(error)) {
     return NextResponse.json(
       { error: { code: "unavailable:database", message: "The database is unavailable; try again in a few seconds." } },

@@ -8,6 +8,15 @@ import type { SourceRow, StagedItem } from "./types";
 export type MissingPolicy = "reject" | "missing";
 const MAX_CATEGORIES = 1_000;
 
+/** PostgreSQL text and jsonb cannot hold U+0000; such a cell is refused with its row and column. */
+function hasNul(value: unknown): boolean {
+  if (typeof value === "string") return value.includes("\u0000");
+  if (value !== null && typeof value === "object") return (JSON.stringify(value) ?? "").includes("\\u0000");
+  return false;
+}
+
+const nulMessage = "contains a NUL character (byte 0), which cannot be stored; remove it from the file";
+
 function shown(value: unknown): string {
   if (typeof value === "string") return value;
   try {
@@ -65,6 +74,7 @@ export class RowEncoder {
     for (const c of this.plan.categorical) {
       const v = values.raw(c.index);
       const s = v === null || v === undefined ? "" : String(v).trim();
+      if (hasNul(s)) issues.add({ row, column: c.name, message: nulMessage });
       if (s === "" && this.opts.missing === "reject") issues.add({ row, column: c.name, message: say.missingRejected("") });
       fields[c.name] = s === "" ? null : s;
       const set = this.categories.get(c.name);
@@ -72,9 +82,11 @@ export class RowEncoder {
     }
     for (const c of this.plan.text) {
       const v = values.raw(c.index);
+      if (hasNul(v)) issues.add({ row, column: c.name, message: nulMessage });
       fields[c.name] = v === undefined ? null : v;
     }
     const externalId = this.idOf(values, row, issues);
+    if (externalId !== null && hasNul(externalId)) issues.add({ row, column: this.plan.id?.name ?? "id", message: nulMessage });
     let priorClassId: number | null = null;
     if (this.plan.prior) {
       const v = values.raw(this.plan.prior.index);

@@ -1,7 +1,10 @@
-import { COSINE_ZERO, manhattan, normaliseInto, partialScore, squaredEuclidean } from "./distance";
-import { mulberry32 } from "./scores";
+import * as distance from "./distance";
+import { assignNearest, kMeans } from "./k-means";
 import { TopK } from "./top-k";
 import type { Distance, Neighbour } from "./types";
+
+// Module-local copies: the CommonJS output reads imported bindings through getters, too slow per row.
+const { COSINE_ZERO, manhattan, normaliseInto, partialScore, squaredEuclidean } = distance;
 
 /** Everything a ClusterIndex holds, in typed arrays (SharedArrayBuffer-backed when built with shared = true). */
 export interface ClusterParts {
@@ -18,7 +21,8 @@ export interface ClusterParts {
   classes: Int32Array;
 }
 
-const SLACK = 1e-9;
+/** Relative and absolute allowance for rounding in the pruning test. */
+export const CLUSTER_SLACK = 1e-9;
 
 /**
  * Exact k-NN with cluster pruning: voters are grouped by k-means (√n lists); a query scans lists
@@ -57,11 +61,9 @@ export class ClusterIndex {
     const C = Math.max(1, Math.min(n, options.lists ?? Math.round(Math.sqrt(n))));
     const centroids = kMeans(rows, dim, n, C, options.sample ?? 10_000, options.iterations ?? 5, options.seed ?? 1);
     const assign = new Int32Array(n);
+    assignNearest(rows, n, dim, centroids, C, assign);
     const counts = new Int32Array(C + 1);
-    for (let i = 0; i < n; i += 1) {
-      assign[i] = nearestCentroid(rows, i * dim, centroids, C, dim);
-      counts[assign[i] + 1] += 1;
-    }
+    for (let i = 0; i < n; i += 1) counts[assign[i] + 1] += 1;
     const offsets = new Int32Array(alloc((C + 1) * 4));
     for (let c = 0; c < C; c += 1) offsets[c + 1] = offsets[c] + counts[c + 1];
     const fillAt = Int32Array.from(offsets.subarray(0, C));
@@ -106,7 +108,7 @@ export class ClusterIndex {
       if (oi === first) continue;
       if (top.size === top.k && top.k > 0) {
         const kth = l1 ? top.bound : Math.sqrt(top.bound);
-        if (dc[c] - radius[c] > kth * (1 + SLACK) + SLACK) continue;
+        if (dc[c] - radius[c] > kth * (1 + CLUSTER_SLACK) + CLUSTER_SLACK) continue;
       }
       const end = offsets[c + 1];
       for (let r = offsets[c]; r < end; r += 1) {
@@ -121,7 +123,8 @@ export class ClusterIndex {
   }
 }
 
-function reported(metric: Distance, s: number): number {
+/** The reported distance of an internal score (squared L2 on unit rows for cosine). */
+export function reported(metric: Distance, s: number): number {
   if (metric === "manhattan") return s;
   if (metric === "euclidean") return Math.sqrt(s);
   const cos = s / 2;
@@ -136,83 +139,4 @@ function pairDistance(a: Float32Array, ao: number, b: Float32Array, bo: number, 
     s += l1 ? Math.abs(t) : t * t;
   }
   return l1 ? s : Math.sqrt(s);
-}
-
-function nearestCentroid(rows: Float32Array, ro: number, centroids: Float32Array, C: number, d: number): number {
-  let best = 0;
-  let bestS = Infinity;
-  for (let c = 0; c < C; c += 1) {
-    const s = partialScoreAt(centroids, c * d, rows, ro, d, bestS);
-    if (s < bestS) {
-      bestS = s;
-      best = c;
-    }
-  }
-  return best;
-}
-
-/** partialScore with the second row at an offset (squared L2, abandoned past `bound`). */
-function partialScoreAt(a: Float32Array, ao: number, b: Float32Array, bo: number, d: number, bound: number): number {
-  let s = 0;
-  for (let j = 0; j < d; j += 8) {
-    const end = Math.min(d, j + 8);
-    for (let t = j; t < end; t += 1) {
-      const x = a[ao + t] - b[bo + t];
-      s += x * x;
-    }
-    if (s > bound) return Infinity;
-  }
-  return s;
-}
-
-/** Lloyd's k-means on a seeded sample, seeded with k-means++ (Arthur & Vassilvitskii 2007). */
-function kMeans(rows: Float32Array, d: number, n: number, C: number, sampleSize: number, iterations: number, seed: number): Float32Array {
-  const rand = mulberry32(seed);
-  const m = Math.min(n, Math.max(sampleSize, C));
-  const pick = Int32Array.from({ length: n }, (_, i) => i);
-  for (let i = 0; i < m; i += 1) {
-    const j = i + Math.floor(rand() * (n - i));
-    const t = pick[i];
-    pick[i] = pick[j];
-    pick[j] = t;
-  }
-  const sample = new Float32Array(m * d);
-  for (let i = 0; i < m; i += 1) sample.set(rows.subarray(pick[i] * d, (pick[i] + 1) * d), i * d);
-  const centroids = new Float32Array(C * d);
-  const nearest = new Float64Array(m).fill(Infinity);
-  let chosen = Math.floor(rand() * m);
-  for (let c = 0; c < C; c += 1) {
-    centroids.set(sample.subarray(chosen * d, (chosen + 1) * d), c * d);
-    let total = 0;
-    for (let i = 0; i < m; i += 1) {
-      const s = squaredEuclidean(sample, i * d, centroids, c * d, d);
-      if (s < nearest[i]) nearest[i] = s;
-      total += nearest[i];
-    }
-    let target = rand() * total;
-    chosen = m - 1;
-    for (let i = 0; i < m; i += 1) {
-      target -= nearest[i];
-      if (target <= 0) {
-        chosen = i;
-        break;
-      }
-    }
-  }
-  const sums = new Float64Array(C * d);
-  const counts = new Int32Array(C);
-  for (let it = 0; it < iterations; it += 1) {
-    sums.fill(0);
-    counts.fill(0);
-    for (let i = 0; i < m; i += 1) {
-      const c = nearestCentroid(sample, i * d, centroids, C, d);
-      counts[c] += 1;
-      for (let j = 0; j < d; j += 1) sums[c * d + j] += sample[i * d + j];
-    }
-    for (let c = 0; c < C; c += 1) {
-      if (counts[c] === 0) continue;
-      for (let j = 0; j < d; j += 1) centroids[c * d + j] = sums[c * d + j] / counts[c];
-    }
-  }
-  return centroids;
 }

@@ -72,6 +72,35 @@ export class TopK {
     this.rows[b] = r;
   }
 
+  /** Empties the heap for reuse (no allocation). */
+  reset(): void {
+    this.size = 0;
+  }
+
+  /**
+   * Writes the kept pairs nearest first (ties by lower id) into the given arrays, without
+   * allocating; returns how many. Insertion sort: k is small.
+   */
+  sortedInto(dist: Float64Array, ids: Int32Array, rows: Int32Array): number {
+    const n = this.size;
+    for (let i = 0; i < n; i += 1) {
+      const d = this.dist[i];
+      const id = this.ids[i];
+      const row = this.rows[i];
+      let j = i - 1;
+      while (j >= 0 && (dist[j] > d || (dist[j] === d && ids[j] > id))) {
+        dist[j + 1] = dist[j];
+        ids[j + 1] = ids[j];
+        rows[j + 1] = rows[j];
+        j -= 1;
+      }
+      dist[j + 1] = d;
+      ids[j + 1] = id;
+      rows[j + 1] = row;
+    }
+    return n;
+  }
+
   /** Kept pairs, nearest first (ties by lower id). */
   sorted(): { distance: number; id: number; row: number }[] {
     const out = [];

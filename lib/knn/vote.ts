@@ -13,32 +13,53 @@ export const TIE_TOLERANCE = 1e-9;
  * the list order, i.e. smallest distance, then lowest item id). No voter → top −1, all shares 0.
  */
 export function vote(neighbours: readonly Neighbour[], numClasses: number, weighting: Weighting = "uniform"): Vote {
+  const n = neighbours.length;
+  const classes = new Int32Array(n);
+  const distances = new Float64Array(n);
+  for (let i = 0; i < n; i += 1) {
+    classes[i] = neighbours[i].classIndex;
+    distances[i] = neighbours[i].distance;
+  }
   const totals = new Float64Array(numClasses);
+  const top = voteInto(classes, distances, n, numClasses, weighting, totals);
+  return { top, shares: totals };
+}
+
+/**
+ * `vote` over the first `count` neighbours given as parallel arrays (nearest first), writing the
+ * shares into `totals` (length ≥ numClasses) and returning the top class: the allocation-free
+ * form the pool workers call per row. Same rules as `vote`.
+ */
+export function voteInto(
+  classes: ArrayLike<number>, distances: ArrayLike<number>, count: number, numClasses: number, weighting: Weighting, totals: Float64Array,
+): number {
+  totals.fill(0, 0, numClasses);
   let duplicates = false;
   if (weighting === "inverse") {
-    for (const n of neighbours) if (n.classIndex >= 0 && n.distance === 0) duplicates = true;
+    for (let i = 0; i < count; i += 1) if (classes[i] >= 0 && distances[i] === 0) duplicates = true;
   }
   let sum = 0;
-  for (const n of neighbours) {
-    const c = n.classIndex;
+  for (let i = 0; i < count; i += 1) {
+    const c = classes[i];
     if (c < 0) continue;
     if (c >= numClasses) throw new RangeError(`class index ${c} outside the label set of ${numClasses}`);
     let w = 1;
-    if (weighting === "inverse") w = duplicates ? (n.distance === 0 ? 1 : 0) : 1 / n.distance;
+    if (weighting === "inverse") w = duplicates ? (distances[i] === 0 ? 1 : 0) : 1 / distances[i];
     totals[c] += w;
     sum += w;
   }
-  if (sum === 0) return { top: -1, shares: totals };
+  if (sum === 0) return -1;
   let best = 0;
   for (let c = 0; c < numClasses; c += 1) if (totals[c] > best) best = totals[c];
   const floor = best * (1 - TIE_TOLERANCE);
   let top = -1;
-  for (const n of neighbours) {
-    if (n.classIndex >= 0 && totals[n.classIndex] >= floor && totals[n.classIndex] > 0) {
-      top = n.classIndex;
+  for (let i = 0; i < count; i += 1) {
+    const c = classes[i];
+    if (c >= 0 && totals[c] >= floor && totals[c] > 0) {
+      top = c;
       break;
     }
   }
   for (let c = 0; c < numClasses; c += 1) totals[c] /= sum;
-  return { top, shares: totals };
+  return top;
 }

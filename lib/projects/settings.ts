@@ -1,5 +1,8 @@
 import { z } from "zod";
 
+// No runtime code generation: the page CSP forbids eval, and zod would otherwise probe for it in the browser.
+z.config({ jitless: true });
+
 export const distanceSchema = z.enum(["euclidean", "manhattan", "cosine"]);
 export const scalingSchema = z.enum(["zscore", "minmax", "none"]);
 export const weightingSchema = z.enum(["uniform", "inverse"]);

@@ -1,6 +1,9 @@
 // k-NN benchmark: exact search against a memory-pass floor and ml-knn, then pool re-ranking of
 // 1 000 000 unlabelled items against 100 000 labelled ones on every core, with measured recall@10.
-// Progress on stderr; one JSON line on stdout. Sizes can be reduced with BENCH_POOL / BENCH_N.
+// Progress on stderr; one JSON line on stdout. Sizes can be reduced with BENCH_POOL / BENCH_N;
+// BENCH_METHOD forces a pool method; BENCH_COMPARE_POOL = m also ranks the first m pool rows
+// one row at a time and batched, back to back (same run, same load), and reports both per query.
+import { availableParallelism, loadavg } from "node:os";
 import KNN from "ml-knn";
 import { ExactIndex, mulberry32 } from "@/lib/knn";
 import type { ClusterIndex } from "@/lib/knn/cluster-index";
@@ -15,6 +18,7 @@ const ML_KNN_QUERIES = 20;
 const K = 10;
 const COMPONENTS = 100;
 const EF = Number(process.env.BENCH_EF ?? 64);
+const COMPARE_POOL = Number(process.env.BENCH_COMPARE_POOL ?? 0);
 
 const log = (message: string) => process.stderr.write(`[bench:knn] ${message}\n`);
 
@@ -40,6 +44,8 @@ const median = (xs: number[]) => {
   const s = [...xs].sort((a, b) => a - b);
   return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
 };
+
+const r = (x: number, p = 3) => Number(x.toFixed(p));
 
 async function main() {
   const fill = makeMixture(20240501);
@@ -95,11 +101,25 @@ async function main() {
   const pool = new Float32Array(new SharedArrayBuffer(POOL * D * 4));
   fill(pool);
   log(`pool: ${POOL} unlabelled rows generated`);
+  const labelledSet = { vectors: labelled, dim: D, classes, numClasses: 5 };
+  let compare: Record<string, number> | undefined;
+  if (COMPARE_POOL > 0) {
+    const part = pool.subarray(0, Math.min(POOL, COMPARE_POOL) * D);
+    const rows = part.length / D;
+    const perQuery: Record<string, number> = {};
+    for (const batched of [false, true]) {
+      const run = await rankPool({ labelled: labelledSet, pool: part, k: K, method: "clustered", batched });
+      perQuery[batched ? "batched" : "oneRow"] = (run.searchSeconds * 1e6) / rows;
+      log(`compare ${rows} rows, clustered, ${batched ? "batched" : "one row at a time"}: ${perQuery[batched ? "batched" : "oneRow"].toFixed(1)} µs/row (search ${run.searchSeconds.toFixed(1)} s)`);
+    }
+    compare = { rows, oneRowUsPerQuery: r(perQuery.oneRow, 1), batchedUsPerQuery: r(perQuery.batched, 1), speedup: r(perQuery.oneRow / perQuery.batched, 2) };
+  }
   let recallAt10 = Number.NaN;
   let used: HnswIndex | ClusterIndex | undefined;
   t = performance.now();
+  const cpu0 = process.cpuUsage();
   const ranked = await rankPool({
-    labelled: { vectors: labelled, dim: D, classes, numClasses: 5 },
+    labelled: labelledSet,
     pool,
     k: K,
     hnsw: { ef: EF },
@@ -108,18 +128,22 @@ async function main() {
     onIndex: (built) => (used = built),
   });
   const poolSeconds = (performance.now() - t) / 1000;
+  // CPU of every thread of this process (workers included): a figure the other jobs on a shared machine do not inflate much.
+  const cpu = process.cpuUsage(cpu0);
+  const poolCpuSeconds = (cpu.user + cpu.system) / 1e6;
   log(`pool ranked by ${ranked.method}: build ${ranked.buildSeconds.toFixed(1)} s + search ${ranked.searchSeconds.toFixed(1)} s = ${poolSeconds.toFixed(1)} s`);
   const sample = pool.subarray(0, 500 * D);
   recallAt10 = used ? measureRecall({ search: (q, k) => used!.search(q, k) }, index, sample, 10) : 1;
   log(`recall@10 of the pool method against exact search on 500 pool rows: ${recallAt10.toFixed(4)}`);
   if (Number.isNaN(sink)) log("unreachable");
 
-  const r = (x: number, p = 3) => Number(x.toFixed(p));
   process.stdout.write(
     `${JSON.stringify({
       n: N, d: D, exactQueryMs: r(exactQueryMs), floorMs: r(floorMs), ratioToFloor: r(exactQueryMs / floorMs, 2),
       mlKnnQueryMs: r(mlKnnQueryMs, 1), speedupVsMlKnn: r(mlKnnQueryMs / exactQueryMs, 1),
       poolItems: POOL, poolSeconds: r(poolSeconds, 1), recallAt10: r(recallAt10, 4),
+      poolMethod: ranked.method, poolBuildSeconds: r(ranked.buildSeconds, 1), poolSearchSeconds: r(ranked.searchSeconds, 1), poolCpuSeconds: r(poolCpuSeconds, 1),
+      cpus: availableParallelism(), loadAverage1m: r(loadavg()[0], 2), ...(compare ? { compare } : {}),
     })}\n`,
   );
 }

@@ -9,7 +9,7 @@ async function main() {
   for (const p of paths) {
     await page.goto(`${base}${p}`);
     await page.waitForLoadState("load");
-    await page.waitForTimeout(1200);
+    await page.waitForTimeout(Number(process.env.SHOT_WAIT ?? 1200));
     const name = `${email.split("@")[0]}${p.replace(/[^a-z0-9]+/gi, "_")}`;
     await page.screenshot({ path: `.data/screenshots/${name}.png`, fullPage: true });
     console.log(name);

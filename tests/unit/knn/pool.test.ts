@@ -45,6 +45,36 @@ describe("pool ranking", () => {
     expect(Array.from(clustered.shares)).toEqual(Array.from(exact.shares));
   }, 20_000);
 
+  it("batched and one-row-at-a-time workers give identical results (exact euclidean, clustered euclidean and cosine)", async () => {
+    for (const [method, distance] of [["exact", "euclidean"], ["clustered", "euclidean"], ["clustered", "cosine"]] as const) {
+      const slow = await rankPool({ labelled, pool, k: 9, threads: 0, method, distance, weighting: "inverse", batched: false });
+      const fast = await rankPool({ labelled, pool, k: 9, threads: 2, method, distance, weighting: "inverse" });
+      expect(fast.method).toBe(method);
+      expect(Array.from(fast.top)).toEqual(Array.from(slow.top));
+      expect(Array.from(fast.shares)).toEqual(Array.from(slow.shares));
+      expect(Array.from(fast.entropy)).toEqual(Array.from(slow.entropy));
+    }
+  }, 20_000);
+
+  it("auto meets recall@10 ≥ 0.98 when it picks HNSW: ef is raised from a too-small start", async () => {
+    // Uniform rows (no cluster structure), HNSW forced by a zero cost estimate, ef 1 to start.
+    const r = mulberry32(21);
+    const dim = 6;
+    const n = 20_000;
+    const vectors = Float32Array.from({ length: n * dim }, () => r());
+    const cls = Int32Array.from({ length: n }, (_, i) => i % 3);
+    const rows = Float32Array.from({ length: 400 * dim }, () => r());
+    const messages: string[] = [];
+    const ranked = await rankPool({
+      labelled: { vectors, dim, classes: cls, numClasses: 3 }, pool: rows, k: 10, threads: 0,
+      hnsw: { m: 8, efConstruction: 40, ef: 1 }, autoCost: { hnswQueryPairs: 0, hnswBuildPairsPerVoter: 0 },
+      onProgress: (m) => messages.push(m),
+    });
+    expect(ranked.recallAt10).toBeGreaterThanOrEqual(0.98);
+    if (ranked.method === "hnsw") expect(ranked.ef).toBeGreaterThan(1);
+    expect(messages.some((m) => m.startsWith("HNSW ef 1: recall@10"))).toBe(true);
+  }, 20_000);
+
   it("HNSW recall@10 against exact search on a small set, and an HNSW pool run in workers", async () => {
     const ids = Int32Array.from({ length: 2000 }, (_, i) => i);
     const hnsw = HnswIndex.build(labelled.vectors, d, ids, Int32Array.from(labelled.classes), "euclidean", { ef: 64 });

@@ -8,12 +8,12 @@ export default async function ProjectLayout({ children, params }: { children: Re
   const role = access.role ?? "owner";
   return (
     <div className="mx-auto grid max-w-[1400px] gap-8 px-6 py-6 lg:grid-cols-[200px_1fr]">
-      <aside className="space-y-4">
+      <aside className="min-w-0 space-y-4">
         <div>
           <Link href="/projects" className="text-xs font-semibold text-ink-faint hover:text-ink">
             ← All projects
           </Link>
-          <p className="mt-2 text-base font-extrabold leading-snug text-ink">{access.project.name}</p>
+          <p className="mt-2 break-words text-base font-extrabold leading-snug text-ink">{access.project.name}</p>
           <p className="text-xs text-ink-faint">
             You are <span className="font-semibold text-ink-soft">{access.role ?? "site admin"}</span>
           </p>
