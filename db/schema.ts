@@ -215,6 +215,8 @@ export const imports = pgTable(
 
 // ---------- Items, assignments, labels ----------
 
+const openItem = sql`status in ('unlabelled', 'in_progress') and not is_control and final_class_id is null`;
+
 export const items = pgTable(
   "items",
   {
@@ -250,11 +252,13 @@ export const items = pgTable(
   (t) => [
     uniqueIndex("items_project_external_id_idx").on(t.projectId, t.externalId),
     index("items_project_status_idx").on(t.projectId, t.status),
-    index("items_queue_lc_idx").on(t.projectId, t.scoreLeastConfident),
-    index("items_queue_margin_idx").on(t.projectId, t.scoreMargin),
-    index("items_queue_entropy_idx").on(t.projectId, t.scoreEntropy),
-    index("items_queue_random_idx").on(t.projectId, t.randomKey),
+    // Desk queue orders: each index yields its order directly over the open items only (see lib/labelling/queue.ts).
+    index("items_queue_lc_idx").on(t.projectId, sql`${t.scoreLeastConfident} desc nulls last`, t.seq).where(openItem),
+    index("items_queue_margin_idx").on(t.projectId, sql`${t.scoreMargin} asc nulls last`, t.seq).where(openItem),
+    index("items_queue_entropy_idx").on(t.projectId, sql`${t.scoreEntropy} desc nulls last`, t.seq).where(openItem),
+    index("items_queue_random_idx").on(t.projectId, t.randomKey, t.seq).where(openItem),
     index("items_queue_seq_idx").on(t.projectId, t.seq),
+    index("items_decided_at_idx").on(t.projectId, t.decidedAt).where(sql`${t.decidedAt} is not null`),
     // Partial where the column is empty at import time, so a bulk import does not pay for them.
     index("items_import_id_idx").on(t.importId).where(sql`${t.importId} is not null`),
     index("items_final_class_idx").on(t.projectId, t.finalClassId).where(sql`${t.finalClassId} is not null`),
@@ -308,6 +312,8 @@ export const labels = pgTable(
     uniqueIndex("labels_annotator_submission_idx").on(t.annotatorId, t.clientSubmissionId),
     uniqueIndex("labels_item_annotator_live_idx").on(t.itemId, t.annotatorId).where(sql`${t.undoneAt} is null`),
     index("labels_project_id_idx").on(t.projectId, t.id),
+    index("labels_project_created_idx").on(t.projectId, t.createdAt),
+    index("labels_project_undone_idx").on(t.projectId, t.undoneAt).where(sql`${t.undoneAt} is not null`),
     index("labels_item_id_idx").on(t.itemId),
     index("labels_annotator_id_idx").on(t.annotatorId, t.createdAt),
     index("labels_class_id_idx").on(t.classId),

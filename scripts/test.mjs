@@ -43,20 +43,23 @@ try {
     if (tc.status === 0) totals.passed += 1;
     else { totals.failed += 1; ok = false; }
   }
-  const env = { ...base, VICINAL_SKIP_BUILD_TYPECHECK: "1", VICINAL_TEST_APP_URL: `http://localhost:${profile.appPort}`, VICINAL_CHROMIUM: chromium, VICINAL_TEST_DATA: profile.dataDir };
-  const suites = [["unit", ["tests/unit"]], ["integration", ["tests/integration"]], ["e2e", ["tests/e2e"]]]
-    .map(([name, paths]) => [name, only.length ? only.filter((o) => o.startsWith(paths[0])) : paths])
+  const env = { ...base, VICINAL_SKIP_BUILD_TYPECHECK: "1", VICINAL_TEST_APP_URL: `http://localhost:${profile.appPort}`, VICINAL_CHROMIUM: chromium, VICINAL_TEST_DATA: profile.dataDir, VICINAL_HARNESS_PID: String(process.pid) };
+  // Fault tests stop and restart the cluster's services, so they run alone, after the other integration tests.
+  const faults = "tests/integration/faults";
+  const suites = [["unit", ["tests/unit"]], ["integration", ["tests/integration"]], ["faults", [faults]], ["e2e", ["tests/e2e"]]]
+    .map(([name, paths]) => [name, only.length ? only.filter((o) => o.startsWith(paths[0]) && (name !== "integration" || !o.startsWith(faults))) : paths])
     .filter(([, paths]) => paths.length);
   const needsApp = suites.some(([name]) => name !== "unit");
   for (const [name, paths] of suites) {
     if (name !== "unit" && needsApp && !env.__appStarted) {
       buildIfNeeded(env);
-      startWorker(env, { logFile: path.join(profile.dataDir, "worker.log") });
+      env.VICINAL_WORKER_PID = String(startWorker(env, { logFile: path.join(profile.dataDir, "worker.log") }).pid);
       await startApp(env, profile.appPort, { logFile: path.join(profile.dataDir, "app.log") });
       env.__appStarted = "1";
     }
     log(`running ${name} tests…`);
-    const r = vitest(env, paths, path.join(reports, `${name}.json`));
+    const extra = { integration: ["--exclude", `${faults}/**`], faults: ["--no-file-parallelism"] }[name] ?? [];
+    const r = vitest(env, [...paths, ...extra], path.join(reports, `${name}.json`));
     totals = { passed: totals.passed + r.passed, failed: totals.failed + r.failed, skipped: totals.skipped + r.skipped };
     ok &&= r.ok;
   }

@@ -27,6 +27,12 @@ async function main() {
   process.on("SIGINT", stop);
 }
 
+// A dropped database connection (e.g. PostgreSQL restarting) can reject inside pg-boss's own loops;
+// log it and keep working — pg-boss reconnects, and the job it was handling is retried by its policy.
+process.on("unhandledRejection", (reason) => {
+  console.error("[worker] unhandled rejection:", reason instanceof Error ? reason.message : reason);
+});
+
 main().catch((error) => {
   console.error("[worker] failed to start", error);
   process.exit(1);

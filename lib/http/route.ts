@@ -1,7 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import { ZodError, type z } from "zod";
-import { AppError, isDatabaseUnavailable } from "@/lib/errors";
+import { AppError, isDatabaseUnavailable, isStorageUnavailable } from "@/lib/errors";
 
 export type ErrorBody = { error: { code: string; message: string; fields?: Array<{ path: string; message: string }>; details?: unknown } };
 
@@ -31,6 +31,12 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
     return NextResponse.json(
       { error: { code: "unavailable:database", message: "The database is unavailable; try again in a few seconds." } },
       { status: 503, headers: { "Retry-After": "2" } },
+    );
+  }
+  if (isStorageUnavailable(error)) {
+    return NextResponse.json(
+      { error: { code: "unavailable:storage", message: "The object store is unreachable; try again in a few seconds." } },
+      { status: 503, headers: { "Retry-After": "5" } },
     );
   }
   console.error("[api]", error);

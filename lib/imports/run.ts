@@ -1,7 +1,7 @@
 import { eq, inArray } from "drizzle-orm";
 import { db, pool } from "@/db";
 import { imports, labelClasses, projects, uploads, type Import, type Upload } from "@/db/schema";
-import { isDatabaseUnavailable } from "@/lib/errors";
+import { isDatabaseUnavailable, isStorageError, isStorageUnavailable } from "@/lib/errors";
 import type { FeatureSchema } from "@/lib/projects/settings";
 import { putObject } from "@/lib/storage/s3";
 import { RowEncoder } from "./encode";
@@ -75,11 +75,16 @@ function mergeCategories(schema: FeatureSchema, categories: Map<string, Set<stri
   };
 }
 
+const unreachable = "The object store could not be reached while reading the file; nothing was imported. Start the import again once it is back.";
+
 /** Every upload must still be in the bucket, within the size limit. */
 async function checkUploads(ctx: ImportContext) {
   if (ctx.uploads.length !== ctx.imp.uploadIds.length) throw new ImportFailure("An uploaded file of this import no longer exists; upload it again.");
   for (const up of ctx.uploads) {
-    const size = await objectSize(up.objectKey).catch(() => -1);
+    const size = await objectSize(up.objectKey).catch((error: unknown) => {
+      if (isStorageUnavailable(error)) throw new ImportFailure(unreachable);
+      return -1;
+    });
     if (size < 0) throw new ImportFailure(`\`${up.fileName}\` is not in the bucket; upload it again.`);
     if (size > limits.uploadMaxBytes) throw new ImportFailure(`\`${up.fileName}\` is ${formatBytes(size)}; the limit per file is ${formatBytes(limits.uploadMaxBytes)}.`);
     if (size === 0) throw new ImportFailure(`\`${up.fileName}\` is empty (0 bytes): there is no header and no rows.`);
@@ -111,8 +116,13 @@ async function finishFailed(ctx: ImportContext, message: string) {
   const key = `projects/${ctx.imp.projectId}/imports/${ctx.imp.id}/errors.csv`;
   let reportKey: string | null = null;
   if (ctx.issues.count > 0) {
-    await putObject(key, ctx.issues.toCsv(), "text/csv; charset=utf-8");
-    reportKey = key;
+    // The failure is recorded even when the report cannot be written (e.g. the object store is down).
+    try {
+      await putObject(key, ctx.issues.toCsv(), "text/csv; charset=utf-8");
+      reportKey = key;
+    } catch (error) {
+      if (!isStorageUnavailable(error) && !isStorageError(error)) throw error;
+    }
   }
   await db
     .update(imports)
@@ -171,6 +181,10 @@ export async function runImport(importId: string, hooks: { phase?: (name: string
       return;
     }
     if (isDatabaseUnavailable(error)) throw error;
+    if (isStorageUnavailable(error)) {
+      await finishFailed(ctx, unreachable).catch(() => undefined);
+      return;
+    }
     console.error("[import]", importId, error);
     await finishFailed(ctx, `The import stopped on an unexpected error (${(error as Error).message}); nothing was imported.`).catch(() => undefined);
   } finally {

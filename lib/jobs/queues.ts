@@ -20,7 +20,9 @@ export const jobNames = Object.keys(jobSchemas) as JobName[];
 /** Retry policy per queue: imports and editions retry after a crash; mail retries with backoff. */
 export const queuePolicies: Record<JobName, { retryLimit: number; retryDelay: number; expireInSeconds: number }> = {
   mail: { retryLimit: 5, retryDelay: 10, expireInSeconds: 60 },
-  import: { retryLimit: 3, retryDelay: 2, expireInSeconds: 3600 },
+  // pg-boss 10 has no heartbeat: a job whose worker died is retried only after it expires. 15 minutes covers a
+  // 10-million-row import at the measured rate; raise it for larger single files.
+  import: { retryLimit: 3, retryDelay: 2, expireInSeconds: 900 },
   "pool-rank": { retryLimit: 1, retryDelay: 5, expireInSeconds: 1800 },
   tuning: { retryLimit: 1, retryDelay: 5, expireInSeconds: 1800 },
   map: { retryLimit: 1, retryDelay: 5, expireInSeconds: 600 },

@@ -19,6 +19,9 @@ function makeClient(endpoint: string | undefined) {
     credentials: { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY },
     requestChecksumCalculation: "WHEN_REQUIRED",
     responseChecksumValidation: "WHEN_REQUIRED",
+    // A store that stops answering must fail the request in seconds, not hang an import or a page.
+    maxAttempts: 3,
+    requestHandler: { connectionTimeout: 5_000, requestTimeout: 60_000 },
   });
 }
 

@@ -41,6 +41,8 @@ export async function runPoolRank(projectId: number, options: { threads?: number
   const C = set.numClasses;
   const d = set.dim;
   const voters = votersOnly(ps);
+  // Nothing votes yet (e.g. right after the first import): every share would be 0, so there is nothing to rank.
+  if (voters.classes.length === 0) return { projectId, poolItems: 0, voters: 0, method: "none", recallAt10: null, seconds: (performance.now() - t0) / 1000, knnVersion: state.version };
   const open = (i: number) => status[i] === "unlabelled" || status[i] === "in_progress";
   const plain: number[] = [];
   const selfVoting: number[] = [];
