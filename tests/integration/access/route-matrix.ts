@@ -131,3 +131,18 @@ export const matrix: Record<string, Entry> = {
   "GET /api/v1/admin/audit": { need: "admin", call: () => ({ path: "/api/v1/admin/audit" }) },
   "GET /api/v1/openapi.json": { need: "public", call: () => ({ path: "/api/v1/openapi.json" }) },
 };
+
+/**
+ * Server actions, by file and export. Every one is a sign-in-flow action: it acts before or at sign-in, touches no
+ * project data and validates its form with zod (`validatedAction`); the browser tests in tests/e2e/foundation.test.ts
+ * drive each of them. Any new server action must be added here (the matrix test fails otherwise) together with a
+ * role check through `requireRole` if it touches project data.
+ */
+export const serverActions: Record<string, { need: Need; covered: string }> = {
+  "app/(auth)/actions.ts#signInWithPassword": { need: "public", covered: "e2e: signs in with a password, refuses a wrong one" },
+  "app/(auth)/actions.ts#signInWithLink": { need: "public", covered: "e2e: signs in with an e-mail link" },
+  "app/(auth)/actions.ts#requestReset": { need: "public", covered: "same answer whether or not the account exists" },
+  "app/(auth)/actions.ts#completeReset": { need: "public", covered: "needs the secret from the e-mail" },
+  "app/(auth)/actions.ts#acceptInvite": { need: "public", covered: "e2e: an invitee accepts from the e-mail; another signed-in account is refused (membership test)" },
+  "app/(auth)/actions.ts#signOutAction": { need: "public", covered: "e2e: signs out" },
+};
