@@ -253,18 +253,21 @@ export const items = pgTable(
     uniqueIndex("items_project_external_id_idx").on(t.projectId, t.externalId),
     index("items_project_status_idx").on(t.projectId, t.status),
     // Desk queue orders: each index yields its order directly over the open items only (see lib/labelling/queue.ts).
-    index("items_queue_lc_idx").on(t.projectId, sql`${t.scoreLeastConfident} desc nulls last`, t.seq).where(openItem),
-    index("items_queue_margin_idx").on(t.projectId, sql`${t.scoreMargin} asc nulls last`, t.seq).where(openItem),
-    index("items_queue_entropy_idx").on(t.projectId, sql`${t.scoreEntropy} desc nulls last`, t.seq).where(openItem),
+    // Score orders cover scored items only (scores are null until the first pool ranking, so an import does not
+    // maintain them); unscored open items are served after them in import order (lib/labelling/queue.ts).
+    index("items_queue_lc_idx").on(t.projectId, sql`${t.scoreLeastConfident} desc nulls last`, t.seq).where(sql`${openItem} and score_least_confident is not null`),
+    index("items_queue_margin_idx").on(t.projectId, sql`${t.scoreMargin} asc nulls last`, t.seq).where(sql`${openItem} and score_margin is not null`),
+    index("items_queue_entropy_idx").on(t.projectId, sql`${t.scoreEntropy} desc nulls last`, t.seq).where(sql`${openItem} and score_entropy is not null`),
     index("items_queue_random_idx").on(t.projectId, t.randomKey, t.seq).where(openItem),
     index("items_queue_seq_idx").on(t.projectId, t.seq),
     index("items_decided_at_idx").on(t.projectId, t.decidedAt).where(sql`${t.decidedAt} is not null`),
-    // Partial where the column is empty at import time, so a bulk import does not pay for them.
-    index("items_import_id_idx").on(t.importId).where(sql`${t.importId} is not null`),
+    // Partial where the column is empty at import time, so a bulk import does not pay for them (import_id is not indexed:
+    // an import is all or nothing, so nothing looks items up by it).
+
     index("items_final_class_idx").on(t.projectId, t.finalClassId).where(sql`${t.finalClassId} is not null`),
     index("items_known_class_id_idx").on(t.knownClassId).where(sql`${t.knownClassId} is not null`),
     index("items_prior_class_id_idx").on(t.priorClassId).where(sql`${t.priorClassId} is not null`),
-    index("items_pool_share_idx").on(t.projectId, t.poolTopShare, t.id),
+    index("items_pool_share_idx").on(t.projectId, t.poolTopShare, t.id).where(sql`${t.poolTopShare} is not null`),
   ],
 );
 

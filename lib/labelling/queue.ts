@@ -33,20 +33,40 @@ function mineFilter(userId: string, exclude: number[]): SQL {
     and not exists (select 1 from assignments a where a.item_id = i.id and a.user_id = ${userId} and a.leased_until > now())`;
 }
 
+const scoreColumns: Partial<Record<QueueOrder, string>> = {
+  least_confident: "score_least_confident",
+  smallest_margin: "score_margin",
+  highest_entropy: "score_entropy",
+};
+
 /** Regular items with a free slot: live labels + others' live leases < overlap, no final label, no open dispute. */
-async function lockRegularCandidates(tx: Tx, input: LeaseInput, skip: number[]): Promise<number[]> {
+async function lockRegularPass(tx: Tx, input: LeaseInput, skip: number[], extra: SQL, order: SQL, limit: number): Promise<number[]> {
   const res = await tx.execute<{ id: number }>(sql`
     select i.id from items i
     where i.project_id = ${input.projectId} and not i.is_control
       and i.status in ('unlabelled', 'in_progress') and i.final_class_id is null
+      and ${extra}
       and i.label_count < ${input.overlap}
       and not exists (select 1 from disputes d where d.item_id = i.id and d.status = 'open')
       and ${mineFilter(input.userId, [...input.exclude, ...skip])}
       and i.label_count + (select count(*) from assignments a where a.item_id = i.id and a.user_id <> ${input.userId} and a.leased_until > now()) < ${input.overlap}
-    order by ${queueOrderSql(input.queueOrder)}
-    limit 6
+    order by ${order}
+    limit ${limit}
     for update of i skip locked`);
   return res.rows.map((r) => Number(r.id));
+}
+
+/**
+ * Score orders read scored items first (through their partial index), then unscored ones in import order:
+ * the same order as `score … nulls last, seq`, without an index that every import would have to maintain.
+ */
+async function lockRegularCandidates(tx: Tx, input: LeaseInput, skip: number[]): Promise<number[]> {
+  const column = scoreColumns[input.queueOrder];
+  if (!column) return lockRegularPass(tx, input, skip, sql`true`, queueOrderSql(input.queueOrder), 6);
+  const scored = await lockRegularPass(tx, input, skip, sql`${sql.raw(`i.${column}`)} is not null`, queueOrderSql(input.queueOrder), 6);
+  if (scored.length >= 6) return scored;
+  const unscored = await lockRegularPass(tx, input, [...skip, ...scored], sql`${sql.raw(`i.${column}`)} is null`, sql`i.seq asc`, 6 - scored.length);
+  return [...scored, ...unscored];
 }
 
 /** Control items (known label) go to every annotator once; they have no overlap cap and never reach consensus. */
