@@ -1,7 +1,7 @@
 /** One typed application error: `kind:subject` codes map to HTTP statuses. */
 export type ErrorKind = "bad_request" | "unauthorized" | "forbidden" | "not_found" | "conflict" | "rate_limited" | "unavailable" | "too_large";
 
-const statusByKind: Record<ErrorKind, number> = {
+export const statusByKind: Record<ErrorKind, number> = {
   bad_request: 400,
   unauthorized: 401,
   forbidden: 403,

@@ -1,14 +1,5 @@
-/** Small seeded PRNG (mulberry32) for reproducible demo data, splits and bootstrap draws. */
-export function mulberry32(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The engine's seeded PRNG (mulberry32), shared by demo data, splits and benchmarks. */
+export { mulberry32 } from "@/lib/knn/scores";
 
 /** Standard normal draws by the Box–Muller transform. */
 export function normal(rand: () => number) {

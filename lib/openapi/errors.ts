@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { statusByKind } from "@/lib/errors";
 
 /** The one error body every route answers with (lib/http/route.ts `errorResponse`). */
 export const errorBodySchema = z
@@ -15,18 +16,8 @@ export const errorBodySchema = z
   })
   .meta({ id: "Error", description: "Every 4xx and 5xx answer has this shape." });
 
-/** HTTP status of each error kind (lib/errors.ts `statusByKind`); validation failures are 422. */
-const statusOfKind: Record<string, number> = {
-  bad_request: 400,
-  unauthorized: 401,
-  forbidden: 403,
-  not_found: 404,
-  conflict: 409,
-  too_large: 413,
-  rate_limited: 429,
-  internal: 500,
-  unavailable: 503,
-};
+/** HTTP status of each error kind (lib/errors.ts), plus the 500 that route.ts answers for unexpected errors. */
+const statusOfKind: Record<string, number> = { ...statusByKind, internal: 500 };
 
 export function statusOfCode(code: string): number {
   if (code === "bad_request:validation") return 422;

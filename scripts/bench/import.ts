@@ -13,23 +13,12 @@ import { uploadKey } from "@/lib/imports/storage";
 import { runImport } from "@/lib/imports/run";
 import { defaultProjectSettings } from "@/lib/projects/settings";
 import { bucket, s3 } from "@/lib/storage/s3";
+import { mulberry32 } from "@/lib/random";
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 1_000_000);
 const FEATURES = 64;
 const dataDir = process.env.VICINAL_BENCH_DATA ?? path.join(process.cwd(), ".data/bench");
 const file = path.join(dataDir, `import-${ROWS}x${FEATURES}.csv`);
-
-/** mulberry32: a small deterministic PRNG, so every run imports the same file. */
-function mulberry32(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 async function generate() {
   if (fs.existsSync(file)) return;

@@ -3,28 +3,13 @@ import fs from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { api } from "../../support/http";
+import { routeHandlersOnDisk } from "../../support/routes";
 import { type Entry, matrix, type Need, serverActions } from "./route-matrix";
 import { makeWorld, type Role, roles, type World } from "./world";
 
-const apiDir = path.resolve(__dirname, "../../../app/api");
-const methods = ["GET", "POST", "PUT", "PATCH", "DELETE"];
-
-/** Every exported handler on disk, as "METHOD /api/…/[param]". */
+/** Every exported handler on disk, as "METHOD /api/…/[param]" (Auth.js's own routes aside). */
 function routesOnDisk(): string[] {
-  const out: string[] = [];
-  const walk = (dir: string) => {
-    for (const name of fs.readdirSync(dir)) {
-      const full = path.join(dir, name);
-      if (fs.statSync(full).isDirectory()) walk(full);
-      else if (name === "route.ts") {
-        const rel = `/api/${path.relative(apiDir, path.dirname(full)).split(path.sep).join("/")}`.replace(/\/$/, "");
-        const src = fs.readFileSync(full, "utf8");
-        for (const m of methods) if (new RegExp(`export (const|async function|function) ${m}\\b|export const \\{[^}]*\\b${m}\\b`).test(src)) out.push(`${m} ${rel}`);
-      }
-    }
-  };
-  walk(apiDir);
-  return out.filter((r) => !r.includes("/api/auth/"));
+  return routeHandlersOnDisk("app/api").filter((r) => !r.includes("/api/auth/"));
 }
 
 const memberRank: Record<string, number> = { viewer: 0, annotator: 1, reviewer: 2, owner: 3 };

@@ -1,30 +1,15 @@
-import fs from "node:fs";
-import path from "node:path";
 import { Validator } from "@seriousme/openapi-schema-validator";
 import { describe, expect, it } from "vitest";
 import { createEditionSchema } from "@/app/api/v1/projects/[projectId]/editions/schema";
 import { apiGroups, buildOpenApiDocument } from "@/lib/openapi/document";
 import { errorCatalogue, statusOfCode } from "@/lib/openapi/errors";
+import { routeHandlersOnDisk } from "@/tests/support/routes";
 
-const root = path.resolve(__dirname, "../../..");
 const methods = ["GET", "POST", "PUT", "PATCH", "DELETE"];
 
-/** Every exported handler under app/api/v1 on disk, as "METHOD /api/v1/…/{param}" (same walk as the route matrix). */
+/** Every exported handler under app/api/v1 on disk, as "METHOD /api/v1/…/{param}" (the walk the route matrix uses). */
 function handlersOnDisk(): string[] {
-  const out: string[] = [];
-  const walk = (dir: string) => {
-    for (const name of fs.readdirSync(dir)) {
-      const full = path.join(dir, name);
-      if (fs.statSync(full).isDirectory()) walk(full);
-      else if (name === "route.ts") {
-        const src = fs.readFileSync(full, "utf8");
-        const rel = `/${path.relative(path.join(root, "app"), dir).split(path.sep).join("/")}`.replace(/\[(\w+)\]/g, "{$1}");
-        for (const m of methods) if (new RegExp(`export (const|async function|function) ${m}\\b|export const \\{[^}]*\\b${m}\\b`).test(src)) out.push(`${m} ${rel}`);
-      }
-    }
-  };
-  walk(path.join(root, "app/api/v1"));
-  return out.sort();
+  return routeHandlersOnDisk("app/api/v1").map((r) => r.replace(/\[(\w+)\]/g, "{$1}"));
 }
 
 const doc = buildOpenApiDocument();
