@@ -388,6 +388,23 @@ export const knnState = pgTable("knn_state", {
   updatedAt: timestamp("updated_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
 });
 
+/**
+ * The change log behind knn_state.version: one row per item whose vote a transaction changed. The row is written
+ * without a version; a deferred trigger (drizzle/0005) gives it the project's next version at commit, under the
+ * knn_state row lock, so versions follow commit order and a process at version v reads exactly the rows above v.
+ * Old rows are pruned as versions advance; a process that finds a gap rebuilds its index.
+ */
+export const knnChanges = pgTable(
+  "knn_changes",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    projectId: integer("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
+    itemId: integer("item_id").notNull(),
+    version: bigint("version", { mode: "number" }),
+  },
+  (t) => [index("knn_changes_project_version_idx").on(t.projectId, t.version)],
+);
+
 export const reports = pgTable(
   "reports",
   {

@@ -1,23 +1,32 @@
 import "server-only";
-import { RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMemory, RateLimiterPostgres, RateLimiterRes, type RateLimiterAbstract } from "rate-limiter-flexible";
 import { pool } from "@/db";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 
-const globalForLimits = globalThis as unknown as { vicinalLimiters?: Record<string, RateLimiterPostgres> };
+const globalForLimits = globalThis as unknown as { vicinalLimiters?: Record<string, RateLimiterAbstract> };
+
+/**
+ * Limits that guard accounts and mail (sign-in, links) are shared by every app process through PostgreSQL. The API-token
+ * limit is a fairness limit on hot traffic: it is counted in each process's memory (with N app replicas a token gets up to
+ * N times the limit), which spares every API request a database write.
+ */
+const inMemory = new Set(["api_token"]);
 
 function limiter(name: string, points: number, duration: number, blockDuration = 0) {
   globalForLimits.vicinalLimiters ??= {};
-  globalForLimits.vicinalLimiters[name] ??= new RateLimiterPostgres({
-    storeClient: pool,
-    tableName: "rate_limits",
-    keyPrefix: name,
-    points,
-    duration,
-    blockDuration,
-    clearExpiredByTimeout: true,
-    tableCreated: true,
-  });
+  globalForLimits.vicinalLimiters[name] ??= inMemory.has(name)
+    ? new RateLimiterMemory({ keyPrefix: name, points, duration, blockDuration })
+    : new RateLimiterPostgres({
+        storeClient: pool,
+        tableName: "rate_limits",
+        keyPrefix: name,
+        points,
+        duration,
+        blockDuration,
+        clearExpiredByTimeout: true,
+        tableCreated: true,
+      });
   return globalForLimits.vicinalLimiters[name];
 }
 
@@ -43,7 +52,7 @@ export async function resetSignInLimit(email: string) {
   await limiter("signin_account", env.SIGNIN_LIMIT_PER_ACCOUNT, 15 * 60, 15 * 60).delete(email.toLowerCase());
 }
 
-/** API token requests per token per minute. */
+/** API token requests per token per minute (per app process, see above). */
 export async function limitToken(tokenId: number) {
   await consume("api_token", env.TOKEN_LIMIT_PER_MINUTE, 60, String(tokenId));
 }

@@ -1,9 +1,8 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db";
-import { items, type Item, type SuggestionSnapshot } from "@/db/schema";
+import { named, pool } from "@/db";
+import type { Item, SuggestionSnapshot } from "@/db/schema";
 import { presignGet } from "@/lib/storage/s3";
-import { getSuggestion, type Suggestion } from "@/lib/suggest";
+import { getSuggestion, getSuggestionUnlessBlind, type Suggestion } from "@/lib/suggest";
 import { signSnapshot } from "./snapshot";
 
 export type DeskSuggestion = Pick<Suggestion, "topClassId" | "shares" | "k" | "distance" | "weighting" | "neighbours" | "votersCount">;
@@ -23,10 +22,10 @@ export function snapshotOf(s: Suggestion, shown: boolean): SuggestionSnapshot {
   return { shown, topClassId: s.topClassId, shares: s.shares, k: s.k, distance: s.distance, engineVersion: s.engineVersion, knnVersion: s.knnVersion };
 }
 
-/** The live suggestion for an item, or null when the engine cannot give one (never fails the caller). */
-export async function safeSuggestion(projectId: number, itemId: number): Promise<Suggestion | null> {
+/** The live suggestion for an item, or null when the engine cannot give one (never fails the caller); `unlessBlind`: null for a blind item too. */
+export async function safeSuggestion(projectId: number, itemId: number, { unlessBlind = false } = {}): Promise<Suggestion | null> {
   try {
-    return await getSuggestion({ projectId, itemId });
+    return unlessBlind ? await getSuggestionUnlessBlind({ projectId, itemId }) : await getSuggestion({ projectId, itemId });
   } catch (error) {
     console.error(`[desk] no suggestion for item ${itemId}:`, (error as Error).message);
     return null;
@@ -49,15 +48,23 @@ export async function itemImageUrl(item: Pick<Item, "imageKey" | "thumbKey">): P
   }
 }
 
+/** What the Desk, the label route and the dispute view need of an item (not its vector or scores); a named statement on the hot path. */
 export async function getItemInProject(projectId: number, itemId: number) {
-  const [item] = await db.select().from(items).where(and(eq(items.id, itemId), eq(items.projectId, projectId)));
-  return item ?? null;
+  const res = await named<{ id: number; external_id: string; fields: Record<string, unknown>; image_key: string | null; thumb_key: string | null; is_control: boolean; is_blind: boolean }>(
+    pool,
+    "vicinal_item_in_project",
+    "select id, external_id, fields, image_key, thumb_key, is_control, is_blind from items where id = $1 and project_id = $2",
+    [itemId, projectId],
+  );
+  const r = res.rows[0];
+  return r ? { id: r.id, externalId: r.external_id, fields: r.fields, imageKey: r.image_key, thumbKey: r.thumb_key, isControl: r.is_control, isBlind: r.is_blind } : null;
 }
 
 export async function buildDeskItem({ projectId, itemId, userId, leasedUntil }: { projectId: number; itemId: number; userId: string; leasedUntil: Date }): Promise<DeskItem | null> {
-  const item = await getItemInProject(projectId, itemId);
+  // The item and its suggestion at once (the suggestion reads the blind flag itself and withholds it for blind items).
+  const [item, s] = await Promise.all([getItemInProject(projectId, itemId), safeSuggestion(projectId, itemId, { unlessBlind: true })]);
   if (!item) return null;
-  const [url, s] = await Promise.all([itemImageUrl(item), item.isBlind ? Promise.resolve(null) : safeSuggestion(projectId, itemId)]);
+  const url = await itemImageUrl(item);
   return {
     itemId: item.id,
     externalId: item.externalId,

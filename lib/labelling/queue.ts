@@ -1,37 +1,31 @@
 import "server-only";
-import { type SQL, sql } from "drizzle-orm";
-import { db, type Tx } from "@/db";
+import { sql } from "drizzle-orm";
+import { named, pgTransaction, type PgTx, type Tx } from "@/db";
 import { env } from "@/lib/env";
 import type { QueueOrder } from "@/lib/projects/settings";
 
 /** Ties always fall back to import order, so the queue is deterministic for a given ranking. */
-export function queueOrderSql(order: QueueOrder): SQL {
-  switch (order) {
-    case "least_confident":
-      return sql`i.score_least_confident desc nulls last, i.seq asc`;
-    case "smallest_margin":
-      return sql`i.score_margin asc nulls last, i.seq asc`;
-    case "highest_entropy":
-      return sql`i.score_entropy desc nulls last, i.seq asc`;
-    case "random":
-      return sql`i.random_key asc, i.seq asc`;
-    case "import_order":
-      return sql`i.seq asc`;
-  }
-}
+const queueOrderText: Record<QueueOrder, string> = {
+  least_confident: "i.score_least_confident desc nulls last, i.seq asc",
+  smallest_margin: "i.score_margin asc nulls last, i.seq asc",
+  highest_entropy: "i.score_entropy desc nulls last, i.seq asc",
+  random: "i.random_key asc, i.seq asc",
+  import_order: "i.seq asc",
+};
 
 export type LeaseInput = { projectId: number; userId: string; overlap: number; queueOrder: QueueOrder; controlRate: number; exclude: number[]; random?: () => number };
 export type Lease = { itemId: number; leasedUntil: Date; renewed: boolean };
 
-const idList = (ids: number[]) => (ids.length ? sql`array[${sql.join(ids.map((i) => sql`${i}`), sql`, `)}]::int[]` : sql`array[]::int[]`);
+/*
+ * Every statement below is a named statement with fixed text (PostgreSQL plans it once per connection); the variable
+ * parts are parameters: $1 project, $2 user, $3 item ids to leave out, then what each statement needs.
+ */
 
 /** Items this annotator may get: never one they labelled (live) or skipped/flagged, never one they already hold. */
-function mineFilter(userId: string, exclude: number[]): SQL {
-  return sql`i.id <> all(${idList(exclude)})
-    and not exists (select 1 from labels l where l.item_id = i.id and l.annotator_id = ${userId} and l.undone_at is null)
-    and not exists (select 1 from item_flags f where f.item_id = i.id and f.user_id = ${userId})
-    and not exists (select 1 from assignments a where a.item_id = i.id and a.user_id = ${userId} and a.leased_until > now())`;
-}
+const mineFilter = `i.id <> all($3::int[])
+    and not exists (select 1 from labels l where l.item_id = i.id and l.annotator_id = $2 and l.undone_at is null)
+    and not exists (select 1 from item_flags f where f.item_id = i.id and f.user_id = $2)
+    and not exists (select 1 from assignments a where a.item_id = i.id and a.user_id = $2 and a.leased_until > now())`;
 
 const scoreColumns: Partial<Record<QueueOrder, string>> = {
   least_confident: "score_least_confident",
@@ -39,20 +33,29 @@ const scoreColumns: Partial<Record<QueueOrder, string>> = {
   highest_entropy: "score_entropy",
 };
 
-/** Regular items with a free slot: live labels + others' live leases < overlap, no final label, no open dispute. */
-async function lockRegularPass(tx: Tx, input: LeaseInput, skip: number[], extra: SQL, order: SQL, limit: number): Promise<number[]> {
-  const res = await tx.execute<{ id: number }>(sql`
+/** Regular items with a free slot: live labels + others' live leases < overlap ($4), no final label, no open dispute; $5 rows. */
+function regularPassText(extra: string, order: string) {
+  return `
     select i.id from items i
-    where i.project_id = ${input.projectId} and not i.is_control
+    where i.project_id = $1 and not i.is_control
       and i.status in ('unlabelled', 'in_progress') and i.final_class_id is null
       and ${extra}
-      and i.label_count < ${input.overlap}
+      and i.label_count < $4
       and not exists (select 1 from disputes d where d.item_id = i.id and d.status = 'open')
-      and ${mineFilter(input.userId, [...input.exclude, ...skip])}
-      and i.label_count + (select count(*) from assignments a where a.item_id = i.id and a.user_id <> ${input.userId} and a.leased_until > now()) < ${input.overlap}
+      and ${mineFilter}
+      and i.label_count + (select count(*) from assignments a where a.item_id = i.id and a.user_id <> $2 and a.leased_until > now()) < $4
     order by ${order}
-    limit ${limit}
-    for update of i skip locked`);
+    limit $5
+    for update of i skip locked`;
+}
+
+async function lockRegularPass(client: PgTx, input: LeaseInput, skip: number[], pass: "all" | "scored" | "unscored", limit: number): Promise<number[]> {
+  const column = scoreColumns[input.queueOrder];
+  const text =
+    pass === "all"
+      ? regularPassText("true", queueOrderText[input.queueOrder])
+      : regularPassText(`i.${column} is ${pass === "scored" ? "not null" : "null"}`, pass === "scored" ? queueOrderText[input.queueOrder] : "i.seq asc");
+  const res = await named<{ id: number }>(client, `vicinal_lease_${input.queueOrder}_${pass}`, text, [input.projectId, input.userId, [...input.exclude, ...skip], input.overlap, limit]);
   return res.rows.map((r) => Number(r.id));
 }
 
@@ -60,49 +63,63 @@ async function lockRegularPass(tx: Tx, input: LeaseInput, skip: number[], extra:
  * Score orders read scored items first (through their partial index), then unscored ones in import order:
  * the same order as `score … nulls last, seq`, without an index that every import would have to maintain.
  */
-async function lockRegularCandidates(tx: Tx, input: LeaseInput, skip: number[]): Promise<number[]> {
-  const column = scoreColumns[input.queueOrder];
-  if (!column) return lockRegularPass(tx, input, skip, sql`true`, queueOrderSql(input.queueOrder), 6);
-  const scored = await lockRegularPass(tx, input, skip, sql`${sql.raw(`i.${column}`)} is not null`, queueOrderSql(input.queueOrder), 6);
+async function lockRegularCandidates(client: PgTx, input: LeaseInput, skip: number[]): Promise<number[]> {
+  if (!scoreColumns[input.queueOrder]) return lockRegularPass(client, input, skip, "all", 6);
+  const scored = await lockRegularPass(client, input, skip, "scored", 6);
   if (scored.length >= 6) return scored;
-  const unscored = await lockRegularPass(tx, input, [...skip, ...scored], sql`${sql.raw(`i.${column}`)} is null`, sql`i.seq asc`, 6 - scored.length);
+  const unscored = await lockRegularPass(client, input, [...skip, ...scored], "unscored", 6 - scored.length);
   return [...scored, ...unscored];
 }
 
 /** Control items (known label) go to every annotator once; they have no overlap cap and never reach consensus. */
-async function lockControlCandidate(tx: Tx, input: LeaseInput): Promise<number | null> {
-  const res = await tx.execute<{ id: number }>(sql`
-    select i.id from items i
-    where i.project_id = ${input.projectId} and i.is_control and i.known_class_id is not null
-      and ${mineFilter(input.userId, input.exclude)}
-    order by i.random_key asc
-    limit 1
-    for update of i skip locked`);
+async function lockControlCandidate(client: PgTx, input: LeaseInput): Promise<number | null> {
+  const res = await named<{ id: number }>(
+    client,
+    "vicinal_lease_control",
+    `select i.id from items i
+     where i.project_id = $1 and i.is_control and i.known_class_id is not null
+       and ${mineFilter}
+     order by i.random_key asc
+     limit 1
+     for update of i skip locked`,
+    [input.projectId, input.userId, input.exclude],
+  );
   return res.rows[0] ? Number(res.rows[0].id) : null;
 }
 
 /**
- * Re-counts under the item's row lock, in a fresh statement: every label and lease write on an item
- * holds the same lock, so this sees all committed slots, which the candidate query's snapshot may not.
+ * Takes the lease if the item still has a free slot, re-counted under the item's row lock in this fresh statement: every
+ * label and lease write on an item holds the same lock, so it sees all committed slots, which the candidate query's
+ * snapshot may not. Null when the slot was taken meanwhile.
  */
-async function slotStillFree(tx: Tx, itemId: number, userId: string, overlap: number): Promise<boolean> {
-  const res = await tx.execute<{ used: number; open: boolean; final: number | null; status: string }>(sql`
-    select
-      (select count(*)::int from labels l where l.item_id = i.id and l.undone_at is null)
-      + (select count(*)::int from assignments a where a.item_id = i.id and a.user_id <> ${userId} and a.leased_until > now()) as used,
-      exists (select 1 from disputes d where d.item_id = i.id and d.status = 'open') as open,
-      i.final_class_id as final, i.status
-    from items i where i.id = ${itemId}`);
-  const row = res.rows[0];
-  return Boolean(row) && row.used < overlap && !row.open && row.final == null && (row.status === "unlabelled" || row.status === "in_progress");
+async function takeLeaseIfFree(client: PgTx, input: LeaseInput, itemId: number): Promise<Lease | null> {
+  const res = await named<{ leased_until: Date }>(
+    client,
+    "vicinal_lease_take_if_free",
+    `insert into assignments (item_id, user_id, project_id, leased_until, created_at)
+     select i.id, $2, $1, now() + make_interval(secs => $5), now()
+     from items i
+     where i.id = $3 and i.final_class_id is null and i.status in ('unlabelled', 'in_progress')
+       and not exists (select 1 from disputes d where d.item_id = i.id and d.status = 'open')
+       and (select count(*)::int from labels l where l.item_id = i.id and l.undone_at is null)
+         + (select count(*)::int from assignments a where a.item_id = i.id and a.user_id <> $2 and a.leased_until > now()) < $4
+     on conflict (item_id, user_id) do update set leased_until = excluded.leased_until, created_at = excluded.created_at
+     returning leased_until`,
+    [input.projectId, input.userId, itemId, input.overlap, env.LEASE_SECONDS],
+  );
+  return res.rows[0] ? { itemId, leasedUntil: new Date(res.rows[0].leased_until), renewed: false } : null;
 }
 
-async function takeLease(tx: Tx, input: LeaseInput, itemId: number): Promise<Lease> {
-  const res = await tx.execute<{ leased_until: Date }>(sql`
-    insert into assignments (item_id, user_id, project_id, leased_until, created_at)
-    values (${itemId}, ${input.userId}, ${input.projectId}, now() + make_interval(secs => ${env.LEASE_SECONDS}), now())
-    on conflict (item_id, user_id) do update set leased_until = excluded.leased_until, created_at = excluded.created_at
-    returning leased_until`);
+async function takeLease(client: PgTx, input: LeaseInput, itemId: number): Promise<Lease> {
+  const res = await named<{ leased_until: Date }>(
+    client,
+    "vicinal_lease_take",
+    `insert into assignments (item_id, user_id, project_id, leased_until, created_at)
+     values ($3, $2, $1, now() + make_interval(secs => $4), now())
+     on conflict (item_id, user_id) do update set leased_until = excluded.leased_until, created_at = excluded.created_at
+     returning leased_until`,
+    [input.projectId, input.userId, itemId, env.LEASE_SECONDS],
+  );
   return { itemId, leasedUntil: new Date(res.rows[0].leased_until), renewed: false };
 }
 
@@ -113,32 +130,38 @@ async function takeLease(tx: Tx, input: LeaseInput, itemId: number): Promise<Lea
  */
 export async function leaseNextItem(input: LeaseInput): Promise<Lease | null> {
   const random = input.random ?? Math.random;
-  return db.transaction(async (tx) => {
-    await tx.execute(sql`delete from assignments where user_id = ${input.userId} and project_id = ${input.projectId} and leased_until <= now()`);
-    const held = await tx.execute<{ item_id: number; leased_until: Date }>(sql`
-      update assignments a set leased_until = now() + make_interval(secs => ${env.LEASE_SECONDS})
-      where a.item_id = (
-        select a2.item_id from assignments a2 join items i on i.id = a2.item_id
-        where a2.user_id = ${input.userId} and a2.project_id = ${input.projectId} and a2.leased_until > now()
-          and a2.item_id <> all(${idList(input.exclude)})
-          and i.final_class_id is null and i.status in ('unlabelled', 'in_progress', 'control')
-          and not exists (select 1 from disputes d where d.item_id = i.id and d.status = 'open')
-        order by a2.created_at asc, a2.item_id asc limit 1)
-      and a.user_id = ${input.userId}
-      returning a.item_id, a.leased_until`);
+  return pgTransaction(async (client) => {
+    // The caller's expired leases are dropped in the same statement that renews a live one.
+    const held = await named<{ item_id: number; leased_until: Date }>(
+      client,
+      "vicinal_lease_held",
+      `with expired as (delete from assignments where user_id = $2 and project_id = $1 and leased_until <= now())
+       update assignments a set leased_until = now() + make_interval(secs => $4)
+       where a.item_id = (
+         select a2.item_id from assignments a2 join items i on i.id = a2.item_id
+         where a2.user_id = $2 and a2.project_id = $1 and a2.leased_until > now()
+           and a2.item_id <> all($3::int[])
+           and i.final_class_id is null and i.status in ('unlabelled', 'in_progress', 'control')
+           and not exists (select 1 from disputes d where d.item_id = i.id and d.status = 'open')
+         order by a2.created_at asc, a2.item_id asc limit 1)
+       and a.user_id = $2
+       returning a.item_id, a.leased_until`,
+      [input.projectId, input.userId, input.exclude, env.LEASE_SECONDS],
+    );
     if (held.rows[0]) return { itemId: Number(held.rows[0].item_id), leasedUntil: new Date(held.rows[0].leased_until), renewed: true };
 
     const wantControl = input.controlRate > 0 && random() < input.controlRate;
     if (wantControl) {
-      const control = await lockControlCandidate(tx, input);
-      if (control != null) return takeLease(tx, input, control);
+      const control = await lockControlCandidate(client, input);
+      if (control != null) return takeLease(client, input, control);
     }
     const rejected: number[] = [];
     for (let round = 0; round < 5; round += 1) {
-      const ids = await lockRegularCandidates(tx, input, rejected);
+      const ids = await lockRegularCandidates(client, input, rejected);
       if (!ids.length) break;
       for (const id of ids) {
-        if (await slotStillFree(tx, id, input.userId, input.overlap)) return takeLease(tx, input, id);
+        const lease = await takeLeaseIfFree(client, input, id);
+        if (lease) return lease;
         rejected.push(id);
       }
     }

@@ -4,7 +4,7 @@ import { db, type DbOrTx } from "@/db";
 import { disputes, items, labelClasses, rulings, users } from "@/db/schema";
 import { writeAudit } from "@/lib/audit";
 import { AppError } from "@/lib/errors";
-import { bumpKnnVersion } from "@/lib/suggest";
+import { markKnnChanged } from "@/lib/suggest";
 import { isUniqueViolation } from "./pg-errors";
 
 export type RulingView = { id: number; disputeId: number; classId: number; className: string; reason: string; reviewerId: string; reviewerName: string | null; createdAt: Date };
@@ -42,7 +42,7 @@ export async function issueRuling({ projectId, disputeId, reviewerId, classId, r
       const now = new Date();
       await tx.update(disputes).set({ status: "ruled", closedAt: now }).where(eq(disputes.id, disputeId));
       await tx.update(items).set({ finalClassId: classId, finalSource: "ruling", status: "ruled", decidedAt: now }).where(eq(items.id, dispute.itemId));
-      await bumpKnnVersion(tx, projectId);
+      await markKnnChanged(tx, projectId, [dispute.itemId]);
       await writeAudit(tx, {
         actorId: reviewerId,
         projectId,

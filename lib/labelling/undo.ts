@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { disputes, items, labels, rulings } from "@/db/schema";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import { bumpKnnVersion } from "@/lib/suggest";
+import { markKnnChanged } from "@/lib/suggest";
 import { UNDO_WINDOW_SECONDS } from "./constants";
 
 /**
@@ -46,7 +46,7 @@ export async function undoLabel({ projectId, itemId, userId }: { projectId: numb
       insert into assignments (item_id, user_id, project_id, leased_until, created_at)
       values (${itemId}, ${userId}, ${projectId}, now() + make_interval(secs => ${env.LEASE_SECONDS}), now())
       on conflict (item_id, user_id) do update set leased_until = excluded.leased_until`);
-    await bumpKnnVersion(tx, projectId);
+    await markKnnChanged(tx, projectId, [itemId]);
     return undone;
   });
 }

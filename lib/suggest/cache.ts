@@ -1,11 +1,8 @@
 import { ExactIndex } from "@/lib/knn";
-import { engineSettingsHash } from "./engine-settings";
 import { categoricalColumns, ensurePreprocessor, hasFeatures, transformRows, type StoredPreprocessor } from "./features";
 import { readEngineState, type EngineState } from "./state";
 import { queryChangedItemIds, queryVotingRows, type VotingRow } from "./voting-sql";
 
-/** Changes are re-read from this long before the last sync point: a transaction that wrote a label before the sync but committed after it is still seen. */
-export const SYNC_MARGIN_MS = 120_000;
 /** A process rebuilds its index from scratch at the next version change after this long (catches anything an incremental pass cannot see, e.g. deleted items). */
 export const FULL_REBUILD_MS = 15 * 60_000;
 
@@ -25,7 +22,7 @@ const entries = new Map<number, EngineEntry>();
 const locks = new Map<number, Promise<EngineEntry>>();
 
 function fingerprintOf(s: EngineState) {
-  return [engineSettingsHash(s.settings), s.maxSeq, s.classIds.join(","), s.schema?.dimension ?? 0, JSON.stringify(s.schema?.columns ?? [])].join("|");
+  return `${s.shapeKey}|${s.maxSeq}`;
 }
 
 /** Forget this process's cached index (one project, or all): the next answer rebuilds it. */
@@ -46,12 +43,16 @@ export function peekEngine(projectId: number): EngineEntry | undefined {
  */
 export async function getEngine(projectId: number): Promise<EngineEntry> {
   const state = await readEngineState(projectId);
-  const cur = entries.get(projectId);
-  if (cur && cur.state.version === state.version && cur.fingerprint === fingerprintOf(state)) return cur;
-  const pending = locks.get(projectId);
-  if (pending) {
-    await pending.catch(() => undefined);
-    return getEngine(projectId);
+  const fingerprint = fingerprintOf(state);
+  const fresh = (e: EngineEntry | undefined): e is EngineEntry => !!e && e.state.version >= state.version && e.fingerprint === fingerprint;
+  for (;;) {
+    const cur = entries.get(projectId);
+    if (fresh(cur)) return cur;
+    const pending = locks.get(projectId);
+    if (!pending) break;
+    // Another request is syncing: its result serves this one too when it reached the version read above.
+    const done = await pending.catch(() => undefined);
+    if (fresh(done)) return done;
   }
   const job = sync(state).finally(() => locks.delete(projectId));
   locks.set(projectId, job);
@@ -90,11 +91,10 @@ async function rebuild(state: EngineState, fingerprint: string, prev?: EngineEnt
 }
 
 async function incremental(entry: EngineEntry, state: EngineState): Promise<EngineEntry> {
-  const since = new Date(entry.syncedAt.getTime() - SYNC_MARGIN_MS);
   if (entry.index && entry.prep) {
-    const ids = await queryChangedItemIds(state.projectId, since);
-    // A bulk change (more than a quarter of the voters) is cheaper to rebuild.
-    if (ids.length > Math.max(2_000, entry.index.size / 4)) return rebuild(state, entry.fingerprint, entry);
+    const ids = await queryChangedItemIds(state.projectId, entry.state.version, state.version);
+    // A gap in the change log, or a bulk change (more than a quarter of the voters), rebuilds.
+    if (ids === null || ids.length > Math.max(2_000, entry.index.size / 4)) return rebuild(state, entry.fingerprint, entry);
     const rows = ids.length ? await queryVotingRows(state.projectId, state.settings, { kind: "ids", ids }, categoricalColumns(state.schema)) : [];
     applyRows(entry, rows);
     entry.stats.changedRows += rows.length;

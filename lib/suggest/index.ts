@@ -1,9 +1,9 @@
 import "server-only";
 import { presignGet } from "@/lib/storage/s3";
-import { computeSuggestion, type Suggestion } from "./suggestion";
+import { computeSuggestion, suggestionUnlessBlind, type Suggestion } from "./suggestion";
 
 export type { Suggestion, SuggestionNeighbour } from "./suggestion";
-export { bumpKnnVersion } from "./version";
+export { markKnnChanged } from "./version";
 export { enqueuePoolRank, maybeEnqueuePoolRank } from "./pool-trigger";
 export { clearEngineCache } from "./cache";
 export { engineVersion } from "./engine-settings";
@@ -11,4 +11,9 @@ export { engineVersion } from "./engine-settings";
 /** The Suggestion for an item (top class, every class's vote share, the neighbours), current as of knn_state.version. */
 export async function getSuggestion(input: { projectId: number; itemId: number }): Promise<Suggestion> {
   return computeSuggestion(input, (key) => presignGet(key));
+}
+
+/** As getSuggestion, but null when the item is blind (its suggestion is withheld from annotators). */
+export async function getSuggestionUnlessBlind(input: { projectId: number; itemId: number }): Promise<Suggestion | null> {
+  return suggestionUnlessBlind(input, (key) => presignGet(key), true);
 }

@@ -12,14 +12,15 @@ export async function enqueuePoolRank(projectId: number): Promise<string | null>
  * several processes calling this at once exactly one enqueues. Call after the label's commit.
  */
 export async function maybeEnqueuePoolRank(projectId: number): Promise<boolean> {
-  const res = await pool.query(
-    `update knn_state ks set labels_since_pool_rank = 0, updated_at = now()
+  const res = await pool.query({
+    name: "vicinal_pool_rank_claim",
+    text: `update knn_state ks set labels_since_pool_rank = 0, updated_at = now()
      from projects p
      where p.id = ks.project_id and ks.project_id = $1
        and ks.labels_since_pool_rank >= coalesce((p.settings->>'poolRerankEvery')::int, 25)
      returning ks.project_id`,
-    [projectId],
-  );
+    values: [projectId],
+  });
   if (!res.rowCount) return false;
   await enqueuePoolRank(projectId);
   return true;

@@ -23,12 +23,17 @@ export type Suggestion = {
 export type ThumbUrl = (key: string) => Promise<string>;
 
 /** The Suggestion for one item of the project; 404 when the item belongs to another project. */
-export async function computeSuggestion(input: { projectId: number; itemId: number }, thumbUrl?: ThumbUrl, retried = false): Promise<Suggestion> {
-  const entry = await getEngine(input.projectId);
+export async function computeSuggestion(input: { projectId: number; itemId: number }, thumbUrl?: ThumbUrl): Promise<Suggestion> {
+  return (await suggestionUnlessBlind(input, thumbUrl, false))!;
+}
+
+/** As computeSuggestion, but null for a blind item when `skipBlind` (the item's flag is read with its vector, in the same query). */
+export async function suggestionUnlessBlind(input: { projectId: number; itemId: number }, thumbUrl: ThumbUrl | undefined, skipBlind: boolean, retried = false): Promise<Suggestion | null> {
+  const [entry, res] = await Promise.all([getEngine(input.projectId), pool.query({ name: "vicinal_suggest_item", text: "select id, project_id, vector, fields, is_blind from items where id = $1", values: [input.itemId] })]);
   const { state } = entry;
-  const res = await pool.query("select id, project_id, vector, fields from items where id = $1", [input.itemId]);
-  const item = res.rows[0] as { id: number; project_id: number; vector: Buffer | null; fields: Record<string, unknown> } | undefined;
+  const item = res.rows[0] as { id: number; project_id: number; vector: Buffer | null; fields: Record<string, unknown>; is_blind: boolean } | undefined;
   if (!item || item.project_id !== input.projectId) throw new AppError("not_found:item", "No such item in this project.");
+  if (skipBlind && item.is_blind) return null;
   const { k, distance, weighting } = state.settings;
   const shares: Record<string, number> = Object.fromEntries(state.classIds.map((id) => [String(id), 0]));
   const base = { itemId: item.id, k, distance, weighting, knnVersion: state.version, engineVersion, votersCount: entry.index?.size ?? 0 };
@@ -38,12 +43,12 @@ export async function computeSuggestion(input: { projectId: number; itemId: numb
   state.classIds.forEach((id, c) => (shares[String(id)] = s.shares[c]));
   const ids = s.neighbours.map((n) => n.id);
   // By primary key only (a project_id condition can lead the planner to scan the project's items); the project is checked here.
-  const info = await pool.query("select id, project_id, external_id, fields, thumb_key from items where id = any($1::int[])", [ids]);
+  const info = await pool.query({ name: "vicinal_suggest_neighbours", text: "select id, project_id, external_id, fields, thumb_key from items where id = any($1::int[])", values: [ids] });
   const byId = new Map(info.rows.filter((r) => r.project_id === input.projectId).map((r) => [r.id as number, r]));
   if (byId.size !== ids.length && !retried) {
     // A neighbour vanished (item deleted): forget the index and answer once more from a fresh one.
     clearEngineCache(input.projectId);
-    return computeSuggestion(input, thumbUrl, true);
+    return suggestionUnlessBlind(input, thumbUrl, skipBlind, true);
   }
   const neighbours = await Promise.all(
     s.neighbours.map(async (n) => {

@@ -15,18 +15,18 @@ export type VotingRow = {
 type Scope = { kind: "voters" } | { kind: "all" } | { kind: "ids"; ids: number[] };
 
 /**
- * Items whose vote may have changed since `since`: labels created or undone, final labels decided,
- * disputes opened or closed, rulings made. (New items change the newest seq, which rebuilds.)
+ * The items whose vote changed after version `after` up to and including `upTo`, from the change log; null when the log
+ * cannot account for every version in between (pruned, or written before the log existed): the caller rebuilds.
  */
-export async function queryChangedItemIds(projectId: number, since: Date): Promise<number[]> {
+export async function queryChangedItemIds(projectId: number, after: number, upTo: number): Promise<number[] | null> {
+  if (upTo <= after) return [];
   const res = await pool.query(
-    `select item_id as id from labels where project_id = $1 and (created_at > $2 or undone_at > $2)
-     union select id from items where project_id = $1 and decided_at > $2
-     union select item_id from disputes where project_id = $1 and (opened_at > $2 or closed_at > $2)
-     union select d.item_id from rulings r join disputes d on d.id = r.dispute_id where d.project_id = $1 and r.created_at > $2`,
-    [projectId, since],
+    `select coalesce(array_agg(distinct item_id), '{}') as ids, count(distinct version)::int as versions
+     from knn_changes where project_id = $1 and version > $2 and version <= $3`,
+    [projectId, after, upTo],
   );
-  return res.rows.map((r) => r.id as number);
+  const row = res.rows[0] as { ids: number[]; versions: number };
+  return row.versions === upTo - after ? row.ids : null;
 }
 
 /*

@@ -19,12 +19,13 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
 const DIM = 16;
 const CLASSES = ["alpha", "beta", "gamma", "delta"];
 const PORT = Number(process.env.BENCH_APP_PORT ?? 3200);
+const FLOOR_SECONDS = Number(process.env.BENCH_FLOOR_SECONDS ?? 10);
 const root = path.resolve(__dirname, "../..");
 
 // autocannon 9 ships no type declarations: the part of its API used here.
 type AcRequest = { method?: string; path?: string; headers?: Record<string, string>; body?: string; setupRequest?: (req: AcRequest, context: any) => AcRequest | null; onResponse?: (status: number, body: string, context: any) => void };
 type AcInstance = { stop(): void; on(event: "response", fn: (client: unknown, status: number, bytes: number, ms: number) => void): void; on(event: "reqError" | "done", fn: (arg: unknown) => void): void };
-const autocannon = createRequire(__filename)("autocannon") as (opts: { url: string; connections: number; duration: number; timeout: number; requests: AcRequest[] }) => AcInstance;
+const autocannon = createRequire(__filename)("autocannon") as (opts: { url: string; connections: number; duration: number; timeout: number; requests?: AcRequest[] }) => AcInstance;
 
 const log = (m: string) => process.stderr.write(`[bench:load] ${m}\n`);
 
@@ -158,6 +159,11 @@ function annotator(base: string, projectId: number, token: string, stopAt: numbe
         method: "POST",
         headers,
         setupRequest: (req, context: Ctx) => {
+          // autocannon's stop() takes effect at its next one-second tick: past the window no label starts, so none is cut in flight.
+          if (Date.now() >= stopAt) {
+            setImmediate(() => instance.stop());
+            return null;
+          }
           if (!context.itemId || !context.classIds?.length) return null;
           context.submission = randomUUID();
           labelsSent += 1;
@@ -184,6 +190,24 @@ function annotator(base: string, projectId: number, token: string, stopAt: numbe
   return new Promise<unknown>((resolve) => instance.on("done", resolve));
 }
 
+/**
+ * The same-run floor: as many connections on GET /api/health/live, a route that does no work of Vicinal's (no database,
+ * no authentication). Its latency is what `next start` on this machine costs per request under this concurrency.
+ */
+async function measureFloor(base: string) {
+  const ms: number[] = [];
+  let failed = 0;
+  const instance = autocannon({ url: `${base}/api/health/live`, connections: ANNOTATORS, duration: FLOOR_SECONDS, timeout: 10 });
+  instance.on("response", (_client, status: number, _bytes: number, t: number) => {
+    ms.push(t);
+    if (status !== 200) failed += 1;
+  });
+  instance.on("reqError", () => (failed += 1));
+  await new Promise((resolve) => instance.on("done", resolve));
+  ms.sort((a, b) => a - b);
+  return { route: "/api/health/live", seconds: FLOOR_SECONDS, requests: ms.length, p50Ms: percentile(ms, 50), p95Ms: percentile(ms, 95), errors: failed };
+}
+
 async function main() {
   process.env.VICINAL_DIST_DIR ??= ".next-bench";
   const app = (await import(pathToFileURL(path.join(root, "scripts/lib/app.mjs")).href)) as AppModule;
@@ -205,10 +229,23 @@ async function main() {
   const dataDir = process.env.VICINAL_BENCH_DATA ?? path.join(root, ".data/bench");
   const child = await app.startApp(env, PORT, { logFile: path.join(dataDir, "app-load.log") });
   const base = `http://127.0.0.1:${PORT}`;
+  let floor: Awaited<ReturnType<typeof measureFloor>> | null = null;
   try {
     // One warm-up loop per annotator builds the project's index and compiles the routes before the clock starts.
     const warm = await fetch(`${base}/api/v1/projects/${world.project.id}/desk/next`, { method: "POST", headers: { authorization: `Bearer ${world.tokens[0]}`, "content-type": "application/json" }, body: "{}" });
     log(`warm-up lease: ${warm.status}`);
+    if (process.env.BENCH_HOLD) {
+      // Manual probing: leave the seeded app up and write what a probe needs; stops when BENCH_HOLD's file is removed.
+      const fs = await import("node:fs");
+      fs.writeFileSync(process.env.BENCH_HOLD, JSON.stringify({ base, projectId: world.project.id, tokens: world.tokens }));
+      log(`holding: ${process.env.BENCH_HOLD}`);
+      while (fs.existsSync(process.env.BENCH_HOLD)) await new Promise((r) => setTimeout(r, 1000));
+      child.kill("SIGTERM");
+      process.exit(0);
+    }
+    log(`floor: ${ANNOTATORS} connections on /api/health/live for ${FLOOR_SECONDS} s…`);
+    floor = await measureFloor(base);
+    log(`floor: ${JSON.stringify(floor)}`);
     const stopAt = Date.now() + SECONDS * 1000;
     const progress = setInterval(() => {
       const done = stepLatency.lease.length + stepLatency.suggestion.length + stepLatency.label.length;
@@ -227,6 +264,7 @@ async function main() {
   const [{ n: stored }] = await db.select({ n: sql<number>`count(*)::int` }).from(labels).where(sql`${inArray(labels.annotatorId, annotatorIds)} and ${labels.undoneAt} is null`);
   const found = acknowledgedIds.length ? (await pool.query("select count(*)::int as n from labels where client_submission_id = any($1::uuid[]) and undone_at is null", [acknowledgedIds])).rows[0].n : 0;
   const all = [...stepLatency.lease, ...stepLatency.suggestion, ...stepLatency.label].sort((a, b) => a - b);
+  const p95 = percentile(all, 95);
   const perStep = Object.fromEntries(
     (Object.keys(stepLatency) as Step[]).map((s) => {
       const v = [...stepLatency[s]].sort((a, b) => a - b);
@@ -238,7 +276,21 @@ async function main() {
   log(`acknowledged labels found in the database: ${found} of ${acknowledgedIds.length}`);
   await pool.end();
   process.stdout.write(
-    `${JSON.stringify({ connections: ANNOTATORS, seconds: SECONDS, requests: all.length, p50Ms: percentile(all, 50), p95Ms: percentile(all, 95), errors, acknowledged: acknowledgedIds.length, stored, unanswered: labelsSent - stepLatency.label.length, steps: perStep })}\n`,
+    `${JSON.stringify({
+      connections: ANNOTATORS,
+      seconds: SECONDS,
+      requests: all.length,
+      p50Ms: percentile(all, 50),
+      p95Ms: p95,
+      errors,
+      acknowledged: acknowledgedIds.length,
+      stored,
+      unanswered: labelsSent - stepLatency.label.length,
+      steps: perStep,
+      floor,
+      p95OverFloor: floor?.p95Ms ? Number((p95 / floor.p95Ms).toFixed(2)) : null,
+      throughputOverFloor: floor?.requests ? Number((all.length / SECONDS / (floor.requests / floor.seconds)).toFixed(3)) : null,
+    })}\n`,
   );
   process.exit(0);
 }

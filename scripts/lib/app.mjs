@@ -26,7 +26,9 @@ export async function waitForHttp(url, ms) {
 }
 
 export async function startApp(env, port, { logFile } = {}) {
-  const child = spawnChild(`app:${port}`, process.execPath, [path.join(root, "node_modules/next/dist/bin/next"), "start", "-H", "127.0.0.1", "-p", String(port)], { env: { ...env, PORT: String(port) }, logFile });
+  // VICINAL_APP_NODE_ARGS: extra node flags for the app process (e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof" when profiling a benchmark).
+  const nodeArgs = (env.VICINAL_APP_NODE_ARGS ?? "").split(" ").filter(Boolean);
+  const child = spawnChild(`app:${port}`, process.execPath, [...nodeArgs, path.join(root, "node_modules/next/dist/bin/next"), "start", "-H", "127.0.0.1", "-p", String(port)], { env: { ...env, PORT: String(port) }, logFile });
   await waitForHttp(`http://127.0.0.1:${port}/api/health`, 60_000);
   return child;
 }

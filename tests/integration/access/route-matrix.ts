@@ -11,6 +11,7 @@ const p = (w: World) => `/api/v1/projects/${w.project.id}`;
 /** Keyed by "METHOD /route/pattern" as it stands on disk. */
 export const matrix: Record<string, Entry> = {
   "GET /api/health": { need: "public", call: () => ({ path: "/api/health" }) },
+  "GET /api/health/live": { need: "public", call: () => ({ path: "/api/health/live" }) },
   "GET /api/v1/me": { need: "user", call: () => ({ path: "/api/v1/me" }) },
   "GET /api/v1/projects": { need: "user", call: () => ({ path: "/api/v1/projects" }) },
   "POST /api/v1/projects": {

@@ -8,7 +8,7 @@ import { ExactIndex, fitPreprocessor, suggest, transformTable } from "@/lib/knn"
 import { packFloat32 } from "@/lib/random";
 import { clearEngineCache, peekEngine } from "@/lib/suggest/cache";
 import { computeSuggestion } from "@/lib/suggest/suggestion";
-import { bumpKnnVersion } from "@/lib/suggest/version";
+import { markKnnChanged } from "@/lib/suggest/version";
 import { makeProject } from "@/tests/support/fixtures";
 import { addLabel, buildWorld, type World } from "./world";
 
@@ -111,7 +111,7 @@ describe("getSuggestion", () => {
     expect(stale.neighbours.map((n) => n.itemId)).not.toContain(w.ids[u]);
     expect(stale.knnVersion).toBe(first.knnVersion);
     // Bumping the version (as the writer's transaction does) makes this process catch up: u is now q's nearest voter.
-    await db.transaction((tx) => bumpKnnVersion(tx, w.project.id));
+    await db.transaction((tx) => markKnnChanged(tx, w.project.id, [w.ids[u]]));
     const caught = await computeSuggestion({ projectId: w.project.id, itemId: w.ids[q] });
     expect(caught.knnVersion).toBe(first.knnVersion + 1);
     expect(caught.neighbours[0].itemId).toBe(w.ids[u]);

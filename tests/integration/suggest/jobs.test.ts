@@ -12,7 +12,7 @@ import { loadProjectSet } from "@/lib/suggest/project-set";
 import { runPoolRank } from "@/lib/suggest/pool-rank";
 import { maybeEnqueuePoolRank } from "@/lib/suggest/pool-trigger";
 import { computeTuning } from "@/lib/suggest/tuning";
-import { bumpKnnVersion } from "@/lib/suggest/version";
+import { markKnnChanged } from "@/lib/suggest/version";
 import { buildWorld, type World } from "./world";
 
 let w: World;
@@ -71,9 +71,9 @@ describe("pool re-ranking", () => {
   }, 20_000);
 
   it("the trigger enqueues once the label count reaches poolRerankEvery, and claims the counter", async () => {
-    for (let i = 0; i < 24; i += 1) await db.transaction((tx) => bumpKnnVersion(tx, w.project.id));
+    for (let i = 0; i < 24; i += 1) await db.transaction((tx) => markKnnChanged(tx, w.project.id, [w.ids[i]]));
     expect(await maybeEnqueuePoolRank(w.project.id)).toBe(false);
-    await db.transaction((tx) => bumpKnnVersion(tx, w.project.id));
+    await db.transaction((tx) => markKnnChanged(tx, w.project.id, [w.ids[24]]));
     expect(await maybeEnqueuePoolRank(w.project.id)).toBe(true);
     expect(await maybeEnqueuePoolRank(w.project.id)).toBe(false);
     const [ks] = await db.select().from(knnState).where(eq(knnState.projectId, w.project.id));

@@ -111,10 +111,10 @@ export async function buildWorld(opts: { n?: number; settings?: Partial<ProjectS
 
 /** Adds one live label by `annotatorId` and marks the item in progress (what the Desk does, minus the suggestion snapshot). */
 export async function addLabel(w: World, i: number, annotatorId: string, c: number, bump: boolean) {
-  const { bumpKnnVersion } = await import("@/lib/suggest/version");
+  const { markKnnChanged } = await import("@/lib/suggest/version");
   await db.transaction(async (tx) => {
     await tx.insert(labels).values({ projectId: w.project.id, itemId: w.ids[i], annotatorId, classId: w.classes[c].id, clientSubmissionId: randomUUID() });
     await tx.update(items).set({ status: "in_progress", labelCount: sql`${items.labelCount} + 1` }).where(eq(items.id, w.ids[i]));
-    if (bump) await bumpKnnVersion(tx, w.project.id);
+    if (bump) await markKnnChanged(tx, w.project.id, [w.ids[i]]);
   });
 }
