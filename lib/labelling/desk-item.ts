@@ -2,7 +2,8 @@ import "server-only";
 import { named, pool } from "@/db";
 import type { Item, SuggestionSnapshot } from "@/db/schema";
 import { presignGet } from "@/lib/storage/s3";
-import { getSuggestion, getSuggestionUnlessBlind, type Suggestion } from "@/lib/suggest";
+import { AppError } from "@/lib/errors";
+import { getSuggestion, getSuggestionWithItem, type Suggestion } from "@/lib/suggest";
 import { signSnapshot } from "./snapshot";
 
 export type DeskSuggestion = Pick<Suggestion, "topClassId" | "shares" | "k" | "distance" | "weighting" | "neighbours" | "votersCount">;
@@ -22,10 +23,10 @@ export function snapshotOf(s: Suggestion, shown: boolean): SuggestionSnapshot {
   return { shown, topClassId: s.topClassId, shares: s.shares, k: s.k, distance: s.distance, engineVersion: s.engineVersion, knnVersion: s.knnVersion };
 }
 
-/** The live suggestion for an item, or null when the engine cannot give one (never fails the caller); `unlessBlind`: null for a blind item too. */
-export async function safeSuggestion(projectId: number, itemId: number, { unlessBlind = false } = {}): Promise<Suggestion | null> {
+/** The live suggestion for an item, or null when the engine cannot give one (never fails the caller). */
+export async function safeSuggestion(projectId: number, itemId: number): Promise<Suggestion | null> {
   try {
-    return unlessBlind ? await getSuggestionUnlessBlind({ projectId, itemId }) : await getSuggestion({ projectId, itemId });
+    return await getSuggestion({ projectId, itemId });
   } catch (error) {
     console.error(`[desk] no suggestion for item ${itemId}:`, (error as Error).message);
     return null;
@@ -61,8 +62,16 @@ export async function getItemInProject(projectId: number, itemId: number) {
 }
 
 export async function buildDeskItem({ projectId, itemId, userId, leasedUntil }: { projectId: number; itemId: number; userId: string; leasedUntil: Date }): Promise<DeskItem | null> {
-  // The item and its suggestion at once (the suggestion reads the blind flag itself and withholds it for blind items).
-  const [item, s] = await Promise.all([getItemInProject(projectId, itemId), safeSuggestion(projectId, itemId, { unlessBlind: true })]);
+  // The item comes with its suggestion (read in the engine's own version check; withheld for blind items). Should the
+  // engine fail, the item is read alone and shown without one.
+  let item: Pick<Item, "id" | "externalId" | "fields" | "imageKey" | "thumbKey"> | null;
+  let s: Suggestion | null;
+  try {
+    ({ item, suggestion: s } = await getSuggestionWithItem({ projectId, itemId }));
+  } catch (error) {
+    if (!(error instanceof AppError && error.code === "not_found:item")) console.error(`[desk] no suggestion for item ${itemId}:`, (error as Error).message);
+    [item, s] = [await getItemInProject(projectId, itemId), null];
+  }
   if (!item) return null;
   const url = await itemImageUrl(item);
   return {

@@ -20,7 +20,12 @@ export type LabelInput = {
 };
 
 export type LabelOutcome = "pending" | "agreed" | "single" | "disputed" | "control";
-export type LabelResult = { label: Label; replayed: boolean; outcome: LabelOutcome; disputeId: number | null };
+/**
+ * `poolRankDue`: whether this label may have brought the project's label events since the last pool re-ranking to the
+ * threshold (read before this commit counts itself, so with concurrent labels the re-ranking can come one label late,
+ * never not at all); null for a replay.
+ */
+export type LabelResult = { label: Label; replayed: boolean; outcome: LabelOutcome; disputeId: number | null; poolRankDue: boolean | null };
 
 /** Locks the item row. (Anything that must see writes committed while this waited for the lock is read in a later statement.) */
 async function lockItem(client: PgTx, input: LabelInput) {
@@ -59,7 +64,7 @@ function replay(existing: Label, itemId: number): LabelResult {
   if (existing.itemId !== itemId) {
     throw new AppError("conflict:submission_reused", "clientSubmissionId: this id was already used for a label on another item; generate a new one per submission.");
   }
-  return { label: existing, replayed: true, outcome: "pending", disputeId: null };
+  return { label: existing, replayed: true, outcome: "pending", disputeId: null, poolRankDue: null };
 }
 
 /**
@@ -150,7 +155,7 @@ async function submitInTx(client: PgTx, input: LabelInput): Promise<LabelResult>
   }
   // The annotator's lease released, the item's count/status/final label set and its vote logged in knn_changes (which
   // gives the project a new version at commit, as markKnnChanged does), in one statement.
-  await named(
+  const applied = await named<{ since_pool_rank: number | null }>(
     client,
     "vicinal_label_apply",
     `with released as (delete from assignments where item_id = $1 and user_id = $2),
@@ -160,8 +165,10 @@ async function submitInTx(client: PgTx, input: LabelInput): Promise<LabelResult>
        final_class_id = case when $6::boolean then $7::int else final_class_id end,
        final_source = case when $6::boolean then $8::label_source else final_source end,
        decided_at = case when $6::boolean then now() else decided_at end
-     where id = $1`,
+     where id = $1
+     returning (select ks.labels_since_pool_rank from knn_state ks where ks.project_id = $3) as since_pool_rank`,
     [item.id, input.userId, input.projectId, live.length, status, final !== null, final?.classId ?? null, final?.source ?? null],
   );
-  return { label, replayed: false, outcome, disputeId };
+  const since = applied.rows[0]?.since_pool_rank ?? 0;
+  return { label, replayed: false, outcome, disputeId, poolRankDue: since + 1 >= input.settings.poolRerankEvery };
 }

@@ -1,6 +1,6 @@
 import { ExactIndex } from "@/lib/knn";
 import { categoricalColumns, ensurePreprocessor, hasFeatures, transformRows, type StoredPreprocessor } from "./features";
-import { readEngineState, type EngineState } from "./state";
+import { readEngineState, type EngineState, type StateItem } from "./state";
 import { queryChangedItemIds, queryVotingRows, type VotingRow } from "./voting-sql";
 
 /** A process rebuilds its index from scratch at the next version change after this long (catches anything an incremental pass cannot see, e.g. deleted items). */
@@ -41,8 +41,16 @@ export function peekEngine(projectId: number): EngineEntry | undefined {
  * changed; an incremental pass over the labels/rulings changed since the last sync when only the
  * version moved; a rebuild when settings, the label set, the feature schema or the items changed.
  */
-export async function getEngine(projectId: number): Promise<EngineEntry> {
-  const state = await readEngineState(projectId);
+export async function getEngine(projectId: number): Promise<EngineEntry>;
+export async function getEngine(projectId: number, itemId: number): Promise<EngineEntry & { item: StateItem | null }>;
+export async function getEngine(projectId: number, itemId?: number): Promise<EngineEntry & { item?: StateItem | null }> {
+  if (itemId === undefined) return engineFor(await readEngineState(projectId));
+  const { item, ...state } = await readEngineState(projectId, itemId);
+  return { ...(await engineFor(state)), item };
+}
+
+async function engineFor(state: EngineState): Promise<EngineEntry> {
+  const projectId = state.projectId;
   const fingerprint = fingerprintOf(state);
   const fresh = (e: EngineEntry | undefined): e is EngineEntry => !!e && e.state.version >= state.version && e.fingerprint === fingerprint;
   for (;;) {

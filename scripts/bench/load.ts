@@ -2,6 +2,7 @@
 // build on loopback with the real database. Progress on stderr; one JSON line last on stdout.
 import { randomUUID } from "node:crypto";
 import type { ChildProcess } from "node:child_process";
+import fs from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
@@ -190,6 +191,34 @@ function annotator(base: string, projectId: number, token: string, stopAt: numbe
   return new Promise<unknown>((resolve) => instance.on("done", resolve));
 }
 
+/** CPU seconds used so far by each process tree (utime + stime from /proc, Linux) and by the whole machine. */
+function cpuSnapshot(appPid: number, postmasterPid: number) {
+  const tick = 100; // USER_HZ: 100 on Linux (getconf CLK_TCK)
+  const stats = new Map<number, { ppid: number; cpu: number }>();
+  for (const name of fs.readdirSync("/proc")) {
+    if (!/^\d+$/.test(name)) continue;
+    try {
+      const text = fs.readFileSync(`/proc/${name}/stat`, "utf8");
+      const f = text.slice(text.lastIndexOf(")") + 2).split(" ");
+      stats.set(Number(name), { ppid: Number(f[1]), cpu: (Number(f[11]) + Number(f[12])) / tick });
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  const tree = (root: number) => {
+    let sum = 0;
+    const todo = [root];
+    while (todo.length) {
+      const pid = todo.pop()!;
+      sum += stats.get(pid)?.cpu ?? 0;
+      for (const [child, s] of stats) if (s.ppid === pid) todo.push(child);
+    }
+    return sum;
+  };
+  const [, user, nice, system, idle, iowait, irq, softirq, steal] = fs.readFileSync("/proc/stat", "utf8").split("\n")[0].trim().split(/\s+/).map(Number);
+  return { app: tree(appPid), database: tree(postmasterPid), machineBusy: (user + nice + system + irq + softirq + steal) / tick, machineAll: (user + nice + system + idle + iowait + irq + softirq + steal) / tick };
+}
+
 /**
  * The same-run floor: as many connections on GET /api/health/live, a route that does no work of Vicinal's (no database,
  * no authentication). Its latency is what `next start` on this machine costs per request under this concurrency.
@@ -230,6 +259,8 @@ async function main() {
   const child = await app.startApp(env, PORT, { logFile: path.join(dataDir, "app-load.log") });
   const base = `http://127.0.0.1:${PORT}`;
   let floor: Awaited<ReturnType<typeof measureFloor>> | null = null;
+  let cpuBefore: ReturnType<typeof cpuSnapshot>;
+  let cpu: { appMsPerLabel: number; databaseMsPerLabel: number; machineBusyShare: number } | null = null;
   try {
     // One warm-up loop per annotator builds the project's index and compiles the routes before the clock starts.
     const warm = await fetch(`${base}/api/v1/projects/${world.project.id}/desk/next`, { method: "POST", headers: { authorization: `Bearer ${world.tokens[0]}`, "content-type": "application/json" }, body: "{}" });
@@ -246,6 +277,8 @@ async function main() {
     log(`floor: ${ANNOTATORS} connections on /api/health/live for ${FLOOR_SECONDS} s…`);
     floor = await measureFloor(base);
     log(`floor: ${JSON.stringify(floor)}`);
+    const postmasterPid = Number(fs.readFileSync(path.join(dataDir, "pg/postmaster.pid"), "utf8").split("\n")[0]);
+    cpuBefore = cpuSnapshot(child.pid!, postmasterPid);
     const stopAt = Date.now() + SECONDS * 1000;
     const progress = setInterval(() => {
       const done = stepLatency.lease.length + stepLatency.suggestion.length + stepLatency.label.length;
@@ -257,6 +290,14 @@ async function main() {
     await Promise.all(runs);
     clearTimeout(hardStop);
     clearInterval(progress);
+    const after = cpuSnapshot(child.pid!, postmasterPid);
+    const loops = acknowledgedIds.length || 1;
+    cpu = {
+      appMsPerLabel: Number((((after.app - cpuBefore.app) * 1000) / loops).toFixed(2)),
+      databaseMsPerLabel: Number((((after.database - cpuBefore.database) * 1000) / loops).toFixed(2)),
+      machineBusyShare: Number(((after.machineBusy - cpuBefore.machineBusy) / (after.machineAll - cpuBefore.machineAll)).toFixed(3)),
+    };
+    log(`cpu: ${JSON.stringify(cpu)}`);
   } finally {
     child.kill("SIGTERM");
   }
@@ -290,6 +331,7 @@ async function main() {
       floor,
       p95OverFloor: floor?.p95Ms ? Number((p95 / floor.p95Ms).toFixed(2)) : null,
       throughputOverFloor: floor?.requests ? Number((all.length / SECONDS / (floor.requests / floor.seconds)).toFixed(3)) : null,
+      cpu,
     })}\n`,
   );
   process.exit(0);

@@ -88,6 +88,19 @@ describe("leases", () => {
 });
 
 describe("labels", () => {
+  it("claims one pool re-ranking when the project's label events reach poolRerankEvery, and not before", async () => {
+    const w = await makeLabellingWorld({ n: 8, settings: { overlap: 1, poolRerankEvery: 5 }, members: [ana, ben, cyd, rev, viewer] });
+    const since = async () => (await db.execute<{ n: number }>(sql`select labels_since_pool_rank as n from knn_state where project_id = ${w.project.id}`)).rows[0].n;
+    const seen: number[] = [];
+    for (let i = 0; i < 6; i += 1) {
+      const itemId = (await next(w, ana.token)).json.data.itemId;
+      expect((await label(w, ana.token, itemId, w.classes[0].id)).status).toBe(201);
+      seen.push(await since());
+    }
+    // The fifth label's answer comes after its claim: the counter is back to 0, and counts on from there.
+    expect(seen).toEqual([1, 2, 3, 4, 0, 1]);
+  });
+
   it("stores a retried submission once and refuses the id on another item", async () => {
     const w = await world(3, 2);
     const itemId = (await next(w, ana.token)).json.data.itemId;

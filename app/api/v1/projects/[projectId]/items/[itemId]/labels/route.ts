@@ -7,6 +7,7 @@ import { blindSnapshotFor, getItemInProject } from "@/lib/labelling/desk-item";
 import { submitLabel } from "@/lib/labelling/label";
 import { readSnapshot } from "@/lib/labelling/snapshot";
 import { undoLabel } from "@/lib/labelling/undo";
+import type { SuggestionSnapshot } from "@/db/schema";
 import { labelSchema } from "./schema";
 
 type P = { projectId: string; itemId: string };
@@ -21,14 +22,34 @@ const view = (l: { id: number; itemId: number; classId: number; tookSuggestion: 
   undoUntil: new Date(l.createdAt.getTime() + UNDO_WINDOW_SECONDS * 1000).toISOString(),
 });
 
+/**
+ * What the Desk showed for this label. A valid token for a shown suggestion settles it at once: tokens with shown
+ * suggestions are only signed for items that are not blind, and an item's blind flag never changes after its import
+ * (the label transaction still checks that the item is in the project). Otherwise the item is read: 404 when it is not
+ * in the project, the hidden suggestion for a blind item (whatever token came), else the token's snapshot or its error.
+ */
+async function snapshotFor(projectId: number, itemId: number, userId: string, token: string | null | undefined) {
+  let fromToken: SuggestionSnapshot | null = null;
+  let tokenError: unknown = null;
+  try {
+    fromToken = readSnapshot(token, itemId, userId);
+  } catch (error) {
+    tokenError = error;
+  }
+  if (fromToken?.shown) return fromToken;
+  const item = await getItemInProject(projectId, itemId);
+  if (!item) throw new AppError("not_found:item", "No such item in this project.");
+  if (item.isBlind) return blindSnapshotFor(projectId, itemId);
+  if (tokenError) throw tokenError;
+  return fromToken;
+}
+
 /** Stores the caller's label; a retry with the same clientSubmissionId answers 200 with the same label. */
 export const POST = route<P>(async (req, { params }) => {
   const access = await requireRole(parseId(params.projectId, "project"), "annotator");
   const itemId = parseId(params.itemId, "item");
   const body = await readJson(req, labelSchema);
-  const item = await getItemInProject(access.project.id, itemId);
-  if (!item) throw new AppError("not_found:item", "No such item in this project.");
-  const snapshot = item.isBlind ? await blindSnapshotFor(access.project.id, itemId) : readSnapshot(body.suggestionToken, itemId, access.user.id);
+  const snapshot = await snapshotFor(access.project.id, itemId, access.user.id, body.suggestionToken);
   const result = await submitLabel({
     projectId: access.project.id,
     settings: access.project.settings,
@@ -39,7 +60,7 @@ export const POST = route<P>(async (req, { params }) => {
     via: body.via,
     snapshot,
   });
-  if (!result.replayed) await afterLabelCommitted({ projectId: access.project.id, settings: access.project.settings, openedDispute: result.disputeId != null });
+  if (!result.replayed) await afterLabelCommitted({ projectId: access.project.id, settings: access.project.settings, openedDispute: result.disputeId != null, poolRankDue: result.poolRankDue });
   return json({ data: { label: view(result.label), replayed: result.replayed } }, { status: result.replayed ? 200 : 201 });
 });
 
