@@ -208,6 +208,8 @@ export const imports = pgTable(
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     startedAt: timestamp("started_at", { withTimezone: true, mode: "date" }),
+    /** Touched every few seconds by the worker running the import; a running import whose heartbeat stops is retried. */
+    heartbeatAt: timestamp("heartbeat_at", { withTimezone: true, mode: "date" }),
     finishedAt: timestamp("finished_at", { withTimezone: true, mode: "date" }),
   },
   (t) => [index("imports_project_id_idx").on(t.projectId), index("imports_created_by_idx").on(t.createdBy)],

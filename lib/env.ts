@@ -23,6 +23,8 @@ const envSchema = z.object({
   MAIL_WEB_URL: z.string().url().optional(),
   UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(2 * 1024 ** 3),
   IMPORT_MAX_COLUMNS: z.coerce.number().int().positive().default(2048),
+  /** A running import whose worker has not beaten for this long is taken as dead: its job is failed, so it is retried. */
+  IMPORT_STALL_SECONDS: z.coerce.number().int().min(5).default(120),
   PRESIGN_SECONDS: z.coerce.number().int().min(30).max(3600).default(300),
   LEASE_SECONDS: z.coerce.number().int().min(30).max(86_400).default(600),
   SIGNIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(10),

@@ -2,6 +2,7 @@
 import { createWorkerBoss } from "@/lib/jobs/boss";
 import { type JobName, jobSchemas } from "@/lib/jobs/queues";
 import { handlers } from "./registry";
+import { failStalledImports, watchMs } from "./watch/stalled-imports";
 
 const concurrency: Partial<Record<JobName, number>> = { mail: 4, import: 1, edition: 1, "pool-rank": 1, tuning: 1 };
 
@@ -18,8 +19,13 @@ async function main() {
       });
     }
   }
+  // Every worker watches for imports whose worker died (see watch/stalled-imports.ts), at start and then regularly.
+  const watch = () => failStalledImports(boss).catch((error: Error) => console.error("[worker] stalled-import watch:", error.message));
+  await watch();
+  const watchTimer = setInterval(watch, watchMs());
   console.log(`[worker] ready: ${Object.keys(handlers).join(", ")}`);
   const stop = async () => {
+    clearInterval(watchTimer);
     await boss.stop({ graceful: true, timeout: 10_000 }).catch(() => undefined);
     process.exit(0);
   };

@@ -173,10 +173,10 @@ export async function killWorker(signal: NodeJS.Signals = "SIGKILL") {
 }
 
 /** Starts a new worker (worker/index.ts) and waits for its "ready" line. */
-export async function startWorker(ms = 45_000): Promise<number> {
+export async function startWorker(ms = 45_000, env: Record<string, string> = {}): Promise<number> {
   const logFile = path.join(dataDir, "worker-restarted.log");
   const before = fs.existsSync(logFile) ? fs.statSync(logFile).size : 0;
-  const pid = spawnGuarded("worker-restarted", [path.join(root, "node_modules/tsx/dist/cli.mjs"), "worker/index.ts"]);
+  const pid = spawnGuarded("worker-restarted", [path.join(root, "node_modules/tsx/dist/cli.mjs"), "worker/index.ts"], { env: { ...process.env, ...env } });
   fs.writeFileSync(workerPidFile, String(pid));
   const until = Date.now() + ms;
   while (Date.now() < until) {

@@ -1,4 +1,5 @@
-// The worker killed (SIGKILL) in the middle of an import: pg-boss retries the job once a new worker runs; no item twice.
+// The worker killed (SIGKILL) in the middle of an import: the import's heartbeat stops, a live worker's watch fails the
+// job, pg-boss retries it, and every row is stored once.
 import PgBoss from "pg-boss";
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { pool } from "@/db";
@@ -10,8 +11,10 @@ import { killWorker, sleep, startWorker, workerPid } from "@/tests/support/clust
 import { columnRoles, generatedCsv, itemCounts, putUpload, waitForImport } from "./helpers";
 
 let w: Awaited<ReturnType<typeof makeRoleWorld>>;
-// A handle on the queue for maintenance only (no workers, no supervision of its own).
+// A handle on the queue for looking at jobs only (no workers, no supervision of its own).
 let boss: PgBoss;
+// The restarted worker judges an import dead after 5 s without a heartbeat (the default is 120 s).
+const STALL_SECONDS = 5;
 
 beforeAll(async () => {
   w = await makeRoleWorld();
@@ -39,7 +42,10 @@ it("retries the import after the worker is killed mid-import and stores each row
   const importId = started.json.import.id as string;
   const running = await waitForImport(importId, (r) => r.status !== "pending" && (r.rowsDone > 0 || r.status !== "running"));
   expect(running.status, "the worker must die while the import runs").toBe("running");
+  const beat = await pool.query("select heartbeat_at from imports where id = $1", [importId]);
+  expect(beat.rows[0].heartbeat_at, "the running import beats").not.toBeNull();
   const killed = await killWorker("SIGKILL");
+  const killedAt = Date.now();
 
   // The killed worker's transaction is rolled back by PostgreSQL: nothing of the import is visible.
   await sleep(500);
@@ -49,16 +55,14 @@ it("retries the import after the worker is killed mid-import and stores each row
   expect(orphan?.retry_limit).toBe(queuePolicies.import.retryLimit);
   expect(orphan?.expire_s).toBe(queuePolicies.import.expireInSeconds);
 
-  // pg-boss 10 has no heartbeat: a dead worker's job is retried once it has been active for expire_in (queuePolicies.import,
-  // 3600 s) and a supervisor's maintenance (every 120 s) expires it. That hour is skipped here by moving the job's start back.
-  await pool.query("update pgboss.job set started_on = now() - expire_in - interval '1 second' where id = $1", [orphan!.id]);
-  await boss.maintain();
-  const retried = await importJob(importId);
-  expect(retried?.state).toBe("retry");
-
-  const pid = await startWorker();
+  // A new worker's watch finds the running import silent for STALL_SECONDS and fails its job; pg-boss retries it.
+  const pid = await startWorker(45_000, { IMPORT_STALL_SECONDS: String(STALL_SECONDS) });
   expect(pid).not.toBe(killed);
-  const done = await waitForImport(importId, (r) => !["pending", "running"].includes(r.status), 45_000);
+  const done = await waitForImport(importId, (r) => !["pending", "running"].includes(r.status), 75_000);
+  const retriedAfterS = (Date.now() - killedAt) / 1000;
+  console.log(`[faults] killed import done ${retriedAfterS.toFixed(1)} s after the kill (stall threshold ${STALL_SECONDS} s)`);
+  // Far sooner than the job's expiry, which is what retried it before there was a watch.
+  expect(retriedAfterS).toBeLessThan(queuePolicies.import.expireInSeconds / 3);
   expect(done.status, done.message ?? "").toBe("succeeded");
   expect(done.itemsCreated).toBe(rows);
   expect(await itemCounts(w.project.id)).toEqual({ n: rows, distinct: rows });
@@ -77,4 +81,4 @@ it("retries the import after the worker is killed mid-import and stores each row
   }
   expect((await boss.getJobById("import", again!, { includeArchive: true }))?.state).toBe("completed");
   expect(await itemCounts(w.project.id)).toEqual({ n: rows, distinct: rows });
-}, 90_000);
+}, 150_000);

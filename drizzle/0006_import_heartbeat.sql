@@ -1,0 +1,1 @@
+ALTER TABLE "imports" ADD COLUMN "heartbeat_at" timestamp with time zone;
