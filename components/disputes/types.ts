@@ -1,21 +1,8 @@
 import type { DeskNeighbour } from "@/components/desk/types";
+import type { DisputeRow } from "@/db/queries/disputes";
 
-export type DisputeLabel = { labelId: number; classId: number; annotatorId: string; annotatorName: string | null; tookSuggestion: boolean; suggestion: { shown: boolean; topClassId: number | null } | null; createdAt: string };
-export type DisputeRow = {
-  id: number;
-  itemId: number;
-  externalId: string;
-  reason: "disagreement" | "doubt";
-  status: "open" | "ruled";
-  note: string | null;
-  openedAt: string;
-  closedAt: string | null;
-  itemStatus: string;
-  finalClassId: number | null;
-  finalSource: string | null;
-  classIds: number[];
-  labels: DisputeLabel[];
-};
+// Typed where the server reads them (type-only imports: no server code reaches the browser).
+export type { DisputeLabel, DisputeRow } from "@/db/queries/disputes";
 export type DisputeList = { data: DisputeRow[]; total: number; pairs: Array<{ a: number; b: number; n: number }>; next: string | null };
 export type Ruling = { id: number; disputeId: number; classId: number; className: string; reason: string; reviewerId: string; reviewerName: string | null; createdAt: string };
 export type DisputeDetail = {

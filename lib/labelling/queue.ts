@@ -33,20 +33,33 @@ const scoreColumns: Partial<Record<QueueOrder, string>> = {
   highest_entropy: "score_entropy",
 };
 
-/** Regular items with a free slot: live labels + others' live leases < overlap ($4), no final label, no open dispute; $5 rows. */
-function regularPassText(extra: string, order: string) {
-  return `
-    select i.id from items i
-    where i.project_id = $1 and not i.is_control
+/** Regular items with a free slot: live labels + others' live leases < overlap ($4), no final label, no open dispute. */
+const regularFilter = `i.project_id = $1 and not i.is_control
       and i.status in ('unlabelled', 'in_progress') and i.final_class_id is null
-      and ${extra}
       and i.label_count < $4
       and not exists (select 1 from disputes d where d.item_id = i.id and d.status = 'open')
       and ${mineFilter}
-      and i.label_count + (select count(*) from assignments a where a.item_id = i.id and a.user_id <> $2 and a.leased_until > now()) < $4
+      and i.label_count + (select count(*) from assignments a where a.item_id = i.id and a.user_id <> $2 and a.leased_until > now()) < $4`;
+
+/** Up to $5 of them in queue order, locked, passing over rows another transaction holds. */
+function regularPassText(extra: string, order: string) {
+  return `
+    select i.id from items i
+    where ${regularFilter} and ${extra}
     order by ${order}
     limit $5
     for update of i skip locked`;
+}
+
+/** Whether any of them exists, locked or not: when the passes found none, were they all held by other transactions? */
+async function anyRegularLeft(client: PgTx, input: LeaseInput, skip: number[]): Promise<boolean> {
+  const res = await named<{ left: boolean }>(client, "vicinal_lease_any_left", `select exists (select 1 from items i where ${regularFilter}) as left`, [
+    input.projectId,
+    input.userId,
+    [...input.exclude, ...skip],
+    input.overlap,
+  ]);
+  return res.rows[0].left;
 }
 
 async function lockRegularPass(client: PgTx, input: LeaseInput, skip: number[], pass: "all" | "scored" | "unscored", limit: number): Promise<number[]> {
@@ -129,6 +142,17 @@ async function takeLease(client: PgTx, input: LeaseInput, itemId: number): Promi
  * never both take the last free slot of an item.
  */
 export async function leaseNextItem(input: LeaseInput): Promise<Lease | null> {
+  // Items skipped only because other transactions held them for a moment (a label committing, another lease) are
+  // free again a few milliseconds later: try again rather than tell the annotator the queue is empty.
+  for (let attempt = 0; ; attempt += 1) {
+    const lease = await leaseOnce(input);
+    if (lease !== "busy") return lease;
+    if (attempt >= 5) return null;
+    await new Promise((r) => setTimeout(r, 10 * 2 ** attempt));
+  }
+}
+
+async function leaseOnce(input: LeaseInput): Promise<Lease | null | "busy"> {
   const random = input.random ?? Math.random;
   return pgTransaction(async (client) => {
     // The caller's expired leases are dropped in the same statement that renews a live one.
@@ -165,7 +189,7 @@ export async function leaseNextItem(input: LeaseInput): Promise<Lease | null> {
         rejected.push(id);
       }
     }
-    return null;
+    return (await anyRegularLeft(client, input, rejected)) ? "busy" : null;
   });
 }
 

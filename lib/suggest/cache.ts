@@ -41,12 +41,14 @@ export function peekEngine(projectId: number): EngineEntry | undefined {
  * changed; an incremental pass over the labels/rulings changed since the last sync when only the
  * version moved; a rebuild when settings, the label set, the feature schema or the items changed.
  */
-export async function getEngine(projectId: number): Promise<EngineEntry>;
-export async function getEngine(projectId: number, itemId: number): Promise<EngineEntry & { item: StateItem | null }>;
-export async function getEngine(projectId: number, itemId?: number): Promise<EngineEntry & { item?: StateItem | null }> {
-  if (itemId === undefined) return engineFor(await readEngineState(projectId));
+export async function getEngine(projectId: number): Promise<EngineEntry> {
+  return engineFor(await readEngineState(projectId));
+}
+
+/** As getEngine, with the item to answer for read in the same round trip as the version check. */
+export async function getEngineWithItem(projectId: number, itemId: number): Promise<{ entry: EngineEntry; item: StateItem | null }> {
   const { item, ...state } = await readEngineState(projectId, itemId);
-  return { ...(await engineFor(state)), item };
+  return { entry: await engineFor(state), item };
 }
 
 async function engineFor(state: EngineState): Promise<EngineEntry> {

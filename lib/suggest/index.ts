@@ -1,6 +1,6 @@
 import "server-only";
 import { presignGet } from "@/lib/storage/s3";
-import { computeSuggestion, suggestionUnlessBlind, suggestionWithItem, type Suggestion } from "./suggestion";
+import { computeSuggestion, suggestionWithItem, type Suggestion } from "./suggestion";
 
 export type { Suggestion, SuggestionNeighbour } from "./suggestion";
 export { markKnnChanged } from "./version";
@@ -13,12 +13,7 @@ export async function getSuggestion(input: { projectId: number; itemId: number }
   return computeSuggestion(input, (key) => presignGet(key));
 }
 
-/** As getSuggestion, but null when the item is blind (its suggestion is withheld from annotators). */
-export async function getSuggestionUnlessBlind(input: { projectId: number; itemId: number }): Promise<Suggestion | null> {
-  return suggestionUnlessBlind(input, (key) => presignGet(key));
-}
-
-/** The item (as the Desk shows it) and its Suggestion in one go; the suggestion is null for a blind item. */
-export async function getSuggestionWithItem(input: { projectId: number; itemId: number }) {
-  return suggestionWithItem(input, (key) => presignGet(key), true);
+/** The item (as the Desk shows it) and its Suggestion in one go; with `skipBlind`, the suggestion is null for a blind item. */
+export async function getSuggestionWithItem(input: { projectId: number; itemId: number }, { skipBlind = true } = {}) {
+  return suggestionWithItem(input, (key) => presignGet(key), skipBlind);
 }

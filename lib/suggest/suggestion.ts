@@ -3,7 +3,7 @@ import { pool } from "@/db";
 import { suggest } from "@/lib/knn";
 import { AppError } from "@/lib/errors";
 import { engineVersion } from "./engine-settings";
-import { clearEngineCache, getEngine } from "./cache";
+import { clearEngineCache, getEngineWithItem } from "./cache";
 import { hasFeatures, transformRows } from "./features";
 import type { StateItem } from "./state";
 
@@ -59,11 +59,6 @@ export async function computeSuggestion(input: { projectId: number; itemId: numb
   return (await suggestionWithItem(input, thumbUrl, false)).suggestion!;
 }
 
-/** As computeSuggestion, but null for a blind item. */
-export async function suggestionUnlessBlind(input: { projectId: number; itemId: number }, thumbUrl?: ThumbUrl): Promise<Suggestion | null> {
-  return (await suggestionWithItem(input, thumbUrl, true)).suggestion;
-}
-
 /**
  * The Suggestion and the item it is for, which comes in the same round trip as the engine's version check (so a Desk
  * item costs no separate item query); with `skipBlind`, a blind item's suggestion is null.
@@ -74,7 +69,7 @@ export async function suggestionWithItem(
   skipBlind: boolean,
   retried = false,
 ): Promise<{ item: StateItem; suggestion: Suggestion | null }> {
-  const { item, ...entry } = await getEngine(input.projectId, input.itemId);
+  const { entry, item } = await getEngineWithItem(input.projectId, input.itemId);
   const { state } = entry;
   // By primary key, then the project check here: a project_id condition can make the planner scan the project's items.
   if (!item || item.projectId !== input.projectId) throw new AppError("not_found:item", "No such item in this project.");

@@ -1,6 +1,6 @@
 import { requireRole } from "@/lib/auth/authorize";
 import { json, parseId, route } from "@/lib/http/route";
-import { getSuggestion, getSuggestionUnlessBlind } from "@/lib/suggest";
+import { getSuggestionWithItem } from "@/lib/suggest";
 import type { SuggestionResponse } from "./schema";
 
 type P = { projectId: string; itemId: string };
@@ -14,7 +14,7 @@ export const GET = route<P>(async (_req, { params }) => {
   const itemId = parseId(params.itemId, "item");
   const role = access.isAdmin ? "owner" : access.role;
   // The item's project and blind flag are checked in the suggestion's own item query (404 for another project's item).
-  const s = role === "annotator" ? await getSuggestionUnlessBlind({ projectId, itemId }) : await getSuggestion({ projectId, itemId });
+  const { suggestion: s } = await getSuggestionWithItem({ projectId, itemId }, { skipBlind: role === "annotator" });
   const body: SuggestionResponse = s ? { ...s, blind: false } : { itemId, blind: true };
   return json({ data: body });
 });
