@@ -3,7 +3,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { api } from "../../support/http";
-import { routeHandlersOnDisk } from "../../support/routes";
+import { filesUnder, projectRoot, routeHandlersOnDisk } from "../../support/routes";
 import { type Entry, matrix, type Need, serverActions } from "./route-matrix";
 import { makeWorld, type Role, roles, type World } from "./world";
 
@@ -62,20 +62,14 @@ describe("route × role matrix", () => {
   }
 
   it("lists every server action on disk (add new ones to serverActions in route-matrix.ts)", () => {
-    const root = path.resolve(__dirname, "../../..");
     const found: string[] = [];
-    const walk = (dir: string) => {
-      for (const name of fs.readdirSync(dir)) {
-        const full = path.join(dir, name);
-        if (fs.statSync(full).isDirectory()) walk(full);
-        else if (/\.tsx?$/.test(name)) {
-          const src = fs.readFileSync(full, "utf8");
-          if (!/^\s*["']use server["']/m.test(src.split("\n").slice(0, 3).join("\n"))) continue;
-          for (const m of src.matchAll(/export (?:const|async function|function) (\w+)/g)) found.push(`${path.relative(root, full).split(path.sep).join("/")}#${m[1]}`);
-        }
+    for (const dir of ["app", "components", "lib"]) {
+      for (const full of filesUnder(path.join(projectRoot, dir), (name) => /\.tsx?$/.test(name))) {
+        const src = fs.readFileSync(full, "utf8");
+        if (!/^\s*["']use server["']/m.test(src.split("\n").slice(0, 3).join("\n"))) continue;
+        for (const m of src.matchAll(/export (?:const|async function|function) (\w+)/g)) found.push(`${path.relative(projectRoot, full).split(path.sep).join("/")}#${m[1]}`);
       }
-    };
-    for (const dir of ["app", "components", "lib"]) walk(path.join(root, dir));
+    }
     expect(found.sort()).toEqual(Object.keys(serverActions).sort());
   });
 

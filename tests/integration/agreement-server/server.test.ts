@@ -1,6 +1,4 @@
 // The server side of agreement: SQL → typed arrays → lib/agreement → cache, against a real PostgreSQL.
-import fs from "node:fs";
-import path from "node:path";
 import { sql } from "drizzle-orm";
 import { alpha as referenceAlpha } from "krippendorff";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -9,6 +7,7 @@ import { type AgreementInput, computeAgreement, createRandom } from "@/lib/agree
 import { AGREEMENT_OPTIONS, getAgreementView, getProjectAgreement, queueProjectAgreement } from "@/lib/agreement-server";
 import { handleAgreement } from "@/worker/jobs/agreement";
 import { makeProject, makeUser } from "../../support/fixtures";
+import { krippendorff2011Classes, krippendorff2011Labels, readKrippendorff2011 } from "../../support/krippendorff-2011";
 import { bumpVersion, insertItems, insertLabels, type LabelSpec, seededLabels } from "./world";
 
 type World = { projectId: number; annotators: string[]; classIds: number[]; itemIds: number[]; specs: LabelSpec[]; blind: Map<number, boolean>; known: Map<number, number>; final: Map<number, number> };
@@ -163,25 +162,12 @@ describe("agreement computed on the server", () => {
 
 describe("the published nominal example through the database", () => {
   it("Krippendorff (2011), 'Computing Krippendorff's Alpha-Reliability', 4 observers × 12 units with missing values: α = 0.743", async () => {
-    const csv = fs.readFileSync(path.resolve(__dirname, "../../fixtures/agreement/krippendorff-2011-nominal.csv"), "utf8");
-    const rows = csv.trim().split("\n").slice(1).map((line) => line.split(","));
-    const observers = await Promise.all(["A", "B", "C", "D"].map((n) => makeUser({ name: `Observer ${n}` })));
-    const { project, classes } = await makeProject({ classes: ["1", "2", "3", "4", "5"] });
-    const units = [...new Set(rows.map((r) => r[0]))];
-    const itemIds = await insertItems(project.id, units.map((u) => ({ externalId: `unit-${u}` })));
-    await insertLabels(
-      project.id,
-      rows.map(([unit, observer, value]) => ({
-        item: itemIds[units.indexOf(unit)],
-        annotator: observers["ABCD".indexOf(observer)].id,
-        classId: classes.find((c) => c.name === value)!.id,
-        suggestion: "none" as const,
-        topClassId: null,
-        took: false,
-      })),
-    );
+    const example = readKrippendorff2011();
+    const { project, classes } = await makeProject({ classes: krippendorff2011Classes });
+    const itemIds = await insertItems(project.id, example.units.map((u) => ({ externalId: `unit-${u}` })));
+    await insertLabels(project.id, await krippendorff2011Labels(example, itemIds, classes));
     const stored = (await getProjectAgreement({ projectId: project.id })).stored!;
-    expect(stored.overall.ratings).toBe(rows.length);
+    expect(stored.overall.ratings).toBe(example.rows.length);
     expect(stored.overall.krippendorffAlpha.value).toBeCloseTo(0.743, 3);
     expect(stored.blind.ratings).toBe(0);
   });

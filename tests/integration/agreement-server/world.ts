@@ -1,20 +1,12 @@
 // Labels written straight to the database for the agreement tests (real PostgreSQL, no mocks).
-import { randomUUID } from "node:crypto";
 import { sql } from "drizzle-orm";
 import { db } from "@/db";
-import { items, labels, type SuggestionSnapshot } from "@/db/schema";
+import { items } from "@/db/schema";
 import { createRandom } from "@/lib/agreement";
+import { insertLabels as insertSharedLabels, type LabelSpec as SharedLabelSpec } from "../../support/labels";
 
-export type LabelSpec = {
-  item: number;
-  annotator: string;
-  classId: number;
-  /** "shown": suggestion on screen; "hidden": stored but not shown (blind item); "none": no suggestion at all. */
-  suggestion: "shown" | "hidden" | "none";
-  topClassId: number | null;
-  took: boolean;
-  undone?: boolean;
-};
+/** No `createdAt`: labels are stamped now by the database, and an undone one is undone now. */
+export type LabelSpec = Omit<SharedLabelSpec, "createdAt">;
 
 export type ItemSpec = { externalId: string; isBlind?: boolean; isControl?: boolean; knownClassId?: number | null; finalClassId?: number | null };
 
@@ -26,24 +18,7 @@ export async function insertItems(projectId: number, specs: ItemSpec[]) {
   return rows.map((r) => r.id);
 }
 
-const snapshot = (spec: LabelSpec): SuggestionSnapshot | null =>
-  spec.suggestion === "none" ? null : { shown: spec.suggestion === "shown", topClassId: spec.topClassId, shares: {}, k: 5, distance: "euclidean", engineVersion: "test", knnVersion: 1 };
-
-export async function insertLabels(projectId: number, specs: LabelSpec[]) {
-  if (!specs.length) return;
-  await db.insert(labels).values(
-    specs.map((s) => ({
-      projectId,
-      itemId: s.item,
-      annotatorId: s.annotator,
-      classId: s.classId,
-      suggestion: snapshot(s),
-      tookSuggestion: s.took,
-      clientSubmissionId: randomUUID(),
-      undoneAt: s.undone ? new Date() : null,
-    })),
-  );
-}
+export const insertLabels: (projectId: number, specs: LabelSpec[]) => Promise<void> = insertSharedLabels;
 
 export async function bumpVersion(projectId: number) {
   await db.execute(sql`update knn_state set version = version + 1 where project_id = ${projectId}`);

@@ -1,45 +1,29 @@
-// GET /api/v1/projects/{projectId}/dashboard/agreement: the headline with band and interval, on a published example.
-import fs from "node:fs";
-import path from "node:path";
+// GET /api/v1/projects/{projectId}/dashboard/agreement: the headline with band and interval, on a published example
+// (Krippendorff 2011 nominal, α = 0.743: tests/support/krippendorff-2011.ts).
 import { beforeAll, describe, expect, it } from "vitest";
 import { makeProject, makeRoleWorld, makeToken, makeUser } from "../../support/fixtures";
 import { api } from "../../support/http";
+import { krippendorff2011Classes, krippendorff2011Labels, readKrippendorff2011 } from "../../support/krippendorff-2011";
 import { insertItems, insertLabels } from "./world";
 
 let w: Awaited<ReturnType<typeof makeRoleWorld>>;
 let labelCount = 0;
 
 beforeAll(async () => {
-  // Krippendorff (2011), "Computing Krippendorff's Alpha-Reliability", nominal example: 4 observers × 12 units
-  // with missing values, α = 0.743. Classes "1"…"5" are the example's values.
-  const csv = fs.readFileSync(path.resolve(__dirname, "../../fixtures/agreement/krippendorff-2011-nominal.csv"), "utf8");
-  const rows = csv.trim().split("\n").slice(1).map((line) => line.split(","));
-  labelCount = rows.length;
+  const example = readKrippendorff2011();
+  labelCount = example.rows.length;
   w = await makeRoleWorld();
-  const observers = await Promise.all(["A", "B", "C", "D"].map((n) => makeUser({ name: `Observer ${n}` })));
   const { project, classes } = await makeProject({
-    classes: ["1", "2", "3", "4", "5"],
+    classes: krippendorff2011Classes,
     members: [
       { userId: w.users.owner.id, role: "owner" },
       { userId: w.users.viewer.id, role: "viewer" },
     ],
   });
   w = { ...w, project };
-  const units = [...new Set(rows.map((r) => r[0]))];
-  const itemIds = await insertItems(project.id, units.map(() => ({ status: "in_progress" as const, finalClassId: null, finalSource: null, leasedFor: null })));
-  await insertLabels(
-    project.id,
-    rows.map(([unit, observer, value]) => ({
-      item: itemIds[units.indexOf(unit)],
-      annotator: observers["ABCD".indexOf(observer)].id,
-      classId: classes.find((c) => c.name === value)!.id,
-      suggestion: "none" as const,
-      topClassId: null,
-      took: false,
-      undone: false,
-      createdAt: new Date(),
-    })),
-  );
+  const itemIds = await insertItems(project.id, example.units.map(() => ({ status: "in_progress" as const, finalClassId: null, finalSource: null, leasedFor: null })));
+  const ratings = await krippendorff2011Labels(example, itemIds, classes);
+  await insertLabels(project.id, ratings.map((label) => ({ ...label, undone: false, createdAt: new Date() })));
 });
 
 const url = () => `/api/v1/projects/${w.project.id}/dashboard/agreement`;

@@ -3,21 +3,14 @@
 // these specs in plain JavaScript, independently of the SQL under test.
 import { randomUUID } from "node:crypto";
 import { db } from "@/db";
-import { assignments, disputes, items, labels, type ItemStatus, type SuggestionSnapshot } from "@/db/schema";
+import { assignments, disputes, items, type ItemStatus } from "@/db/schema";
 import { createRandom } from "@/lib/agreement";
+import { insertLabels as insertSharedLabels, type LabelSpec as SharedLabelSpec } from "../../support/labels";
 
 export type Source = "agreed" | "ruling" | "single" | "control";
 export type ItemSpec = { status: ItemStatus; finalClassId: number | null; finalSource: Source | null; leasedFor: number | null };
-export type LabelSpec = {
-  item: number;
-  annotator: string;
-  classId: number;
-  suggestion: "shown" | "hidden" | "none";
-  topClassId: number | null;
-  took: boolean;
-  undone: boolean;
-  createdAt: Date;
-};
+/** Every label has its own `createdAt`; an undone one is undone 1 s later. */
+export type LabelSpec = Required<SharedLabelSpec>;
 export type DisputeSpec = { item: number; reason: "disagreement" | "doubt"; status: "open" | "ruled"; ageHours: number };
 
 const HOUR = 3_600_000;
@@ -78,25 +71,7 @@ export function labelSpecs(seed: number, itemIds: number[], annotators: string[]
   return out;
 }
 
-const snapshot = (s: LabelSpec): SuggestionSnapshot | null =>
-  s.suggestion === "none" ? null : { shown: s.suggestion === "shown", topClassId: s.topClassId, shares: {}, k: 5, distance: "euclidean", engineVersion: "test", knnVersion: 1 };
-
-export async function insertLabels(projectId: number, specs: LabelSpec[]) {
-  if (!specs.length) return;
-  await db.insert(labels).values(
-    specs.map((s) => ({
-      projectId,
-      itemId: s.item,
-      annotatorId: s.annotator,
-      classId: s.classId,
-      suggestion: snapshot(s),
-      tookSuggestion: s.took,
-      clientSubmissionId: randomUUID(),
-      createdAt: s.createdAt,
-      undoneAt: s.undone ? new Date(s.createdAt.getTime() + 1000) : null,
-    })),
-  );
-}
+export const insertLabels: (projectId: number, specs: LabelSpec[]) => Promise<void> = insertSharedLabels;
 
 /** Ages chosen well inside the buckets (under 1 day, 1–3 days, 3–7 days, 1–4 weeks, over 4 weeks). */
 export const disputeAges = [2, 5, 30, 50, 100, 120, 150, 200, 400, 700, 1000];

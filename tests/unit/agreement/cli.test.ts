@@ -6,6 +6,7 @@ import { promisify } from "node:util";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { runAgreement } from "@/cli/commands/agreement";
 import { CliError } from "@/cli/errors";
+import { captureStdout } from "../../support/cli";
 
 const dir = mkdtempSync(join(tmpdir(), "vicinal-agreement-"));
 const FIXTURE = "tests/fixtures/agreement/krippendorff-2011-nominal.csv";
@@ -14,20 +15,6 @@ function csv(name: string, text: string): string {
   const path = join(dir, name);
   writeFileSync(path, text);
   return path;
-}
-
-async function captureStdout(run: () => Promise<void>): Promise<string> {
-  let out = "";
-  const spy = vi.spyOn(process.stdout, "write").mockImplementation((chunk: string | Uint8Array) => {
-    out += String(chunk);
-    return true;
-  });
-  try {
-    await run();
-  } finally {
-    spy.mockRestore();
-  }
-  return out;
 }
 
 afterEach(() => vi.restoreAllMocks());

@@ -2,29 +2,16 @@ import { afterEach, describe, expect, it, vi } from "vitest";
 import { runSuggest } from "@/cli/commands/suggest";
 import { runTune } from "@/cli/commands/tune";
 import { CliError } from "@/cli/errors";
+import { captureStdout } from "../../support/cli";
 
 const fx = (name: string) => `tests/fixtures/knn/${name}`;
-
-async function capture(run: () => Promise<void>): Promise<string> {
-  let out = "";
-  const spy = vi.spyOn(process.stdout, "write").mockImplementation((chunk: string | Uint8Array) => {
-    out += String(chunk);
-    return true;
-  });
-  try {
-    await run();
-  } finally {
-    spy.mockRestore();
-  }
-  return out;
-}
 
 afterEach(() => vi.restoreAllMocks());
 
 describe("cli suggest", () => {
   it("prints one JSON object per item with shares and neighbours (hand-checked on a tiny table)", async () => {
     // x z-scored with mean 6, population sd √20.5; colour one-hot (blue, red), row d's colour missing → zeros.
-    const out = await capture(() => runSuggest(["--labelled", fx("tiny-labelled.csv"), "--items", fx("tiny-items.csv"), "--k", "3"]));
+    const out = await captureStdout(() => runSuggest(["--labelled", fx("tiny-labelled.csv"), "--items", fx("tiny-items.csv"), "--k", "3"]));
     const lines = out.trim().split("\n").map((l) => JSON.parse(l));
     expect(lines).toHaveLength(2);
     expect(lines[0].id).toBe("q1");
@@ -37,7 +24,7 @@ describe("cli suggest", () => {
   });
 
   it("inverse weighting and cosine run", async () => {
-    const out = await capture(() =>
+    const out = await captureStdout(() =>
       runSuggest(["--labelled", fx("tiny-labelled.csv"), "--items", fx("tiny-items.csv"), "--weighting", "inverse", "--distance", "cosine", "--scaling", "minmax"]),
     );
     const first = JSON.parse(out.split("\n")[0]);
@@ -63,7 +50,7 @@ describe("cli suggest", () => {
 
 describe("cli tune", () => {
   it("prints leave-one-out results for each k and distance", async () => {
-    const out = await capture(() => runTune(["--labelled", fx("tiny-labelled.csv"), "--k", "1,3", "--distance", "euclidean,manhattan"]));
+    const out = await captureStdout(() => runTune(["--labelled", fx("tiny-labelled.csv"), "--k", "1,3", "--distance", "euclidean,manhattan"]));
     const parsed = JSON.parse(out);
     expect(parsed.results).toHaveLength(4);
     // k = 1: a↔b and c↔d are each other's nearest → 4 of 4 correct.
