@@ -1,15 +1,7 @@
 import { formatCoefficient, type Interval } from "@/lib/agreement";
+import { axisStart, bandStripes, intervalPhrase } from "./band-stripes";
 
 export type IntervalRow = { key: string; label: string; value: number | null; ci95: Interval | null };
-
-const stripes = [
-  { from: -1, to: 0, name: "poor", fill: "#fbeae6" },
-  { from: 0, to: 0.2, name: "slight", fill: "#fbf3e2" },
-  { from: 0.2, to: 0.4, name: "fair", fill: "#f7ebcf" },
-  { from: 0.4, to: 0.6, name: "moderate", fill: "#f1eee7" },
-  { from: 0.6, to: 0.8, name: "substantial", fill: "#e3efec" },
-  { from: 0.8, to: 1, name: "almost perfect", fill: "#d3e6e2" },
-];
 
 const W = 760;
 const LABEL = 190;
@@ -22,18 +14,17 @@ const ROW = 34;
  * The numbers are repeated in the table beside it; the picture is aria-hidden-free but summarised.
  */
 export function IntervalChart({ rows, title }: { rows: IntervalRow[]; title: string }) {
-  const lows = rows.flatMap((r) => [r.value, r.ci95?.lower]).filter((v): v is number => typeof v === "number");
-  const min = Math.max(-1, Math.min(-0.2, ...lows.map((v) => Math.floor(v * 5) / 5)));
+  const min = axisStart(rows, -0.2);
   const x = (v: number) => LABEL + ((Math.max(min, Math.min(1, v)) - min) / (1 - min)) * (W - LABEL - RIGHT);
   const height = TOP + rows.length * ROW + 22;
   const ticks = [min, ...[0, 0.2, 0.4, 0.6, 0.8, 1].filter((t) => t > min)];
   const summary = rows
-    .map((r) => `${r.label}: ${r.value === null ? "undefined" : formatCoefficient(r.value)}${r.ci95 ? `, 95% CI ${formatCoefficient(r.ci95.lower)} to ${formatCoefficient(r.ci95.upper)}` : ", no interval"}`)
+    .map((r) => `${r.label}: ${r.value === null ? "undefined" : formatCoefficient(r.value)}${intervalPhrase(r.ci95)}`)
     .join("; ");
   return (
     <figure className="overflow-x-auto">
       <svg viewBox={`0 0 ${W} ${height}`} className="w-full min-w-[560px]" role="img" aria-label={`${title}. ${summary}`}>
-        {stripes
+        {bandStripes
           .filter((s) => s.to > min)
           .map((s) => (
             <g key={s.name}>

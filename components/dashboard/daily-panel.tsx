@@ -3,7 +3,7 @@
 import { Bar, BarChart, CartesianGrid, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { DailyLabels } from "@/db/queries/dashboard";
 import { annotatorPalette, axis, gridStroke, int, othersColour, shortDay, tooltipStyle } from "./format";
-import { ChartTable, Panel, Swatch, td, tdNum, th } from "./table";
+import { ChartTable, Legend, Panel, td, tdNum, th } from "./table";
 
 const MAX_SERIES = 7;
 
@@ -60,14 +60,7 @@ export function DailyPanel({ daily }: { daily: DailyLabels }) {
           </BarChart>
         </ResponsiveContainer>
       </div>
-      <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">
-        {series.map((s) => (
-          <li key={s.key} className={`inline-flex items-center gap-1.5 ${s.you ? "font-bold text-ink" : ""}`}>
-            <Swatch colour={s.colour} />
-            {s.name}
-          </li>
-        ))}
-      </ul>
+      <Legend entries={series.map((s) => ({ key: s.key, label: s.name, colour: s.colour, strong: s.you }))} />
       <p className="mt-2 text-xs text-ink-faint">Live labels only (undone ones left out); days end at midnight {daily.timeZone === "UTC" ? "UTC" : `in ${daily.timeZone}`}.</p>
       <ChartTable caption={`Labels per day and annotator, last ${daily.days.length} days`}>
         <thead className="border-b border-line">

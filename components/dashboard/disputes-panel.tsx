@@ -4,7 +4,7 @@ import Link from "next/link";
 import { Bar, BarChart, CartesianGrid, LabelList, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import type { OpenDisputes } from "@/db/queries/dashboard";
 import { ageText, axis, gridStroke, int, tooltipStyle } from "./format";
-import { ChartTable, Panel, Swatch, td, tdNum, th } from "./table";
+import { ChartTable, Legend, Panel, td, tdNum, th } from "./table";
 
 const reasons = [
   { key: "disagreement", label: "Annotators disagree", colour: "#b4442f" },
@@ -35,11 +35,7 @@ export function DisputesPanel({ disputes, projectId, canReview, now }: { dispute
           </BarChart>
         </ResponsiveContainer>
       </div>
-      <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">
-        {reasons.map((r) => (
-          <li key={r.key} className="inline-flex items-center gap-1.5"><Swatch colour={r.colour} />{r.label}</li>
-        ))}
-      </ul>
+      <Legend entries={reasons} />
       {disputes.medianAgeHours !== null ? <p className="mt-2 text-xs text-ink-faint">Median wait {ageText(disputes.medianAgeHours)}.{stale ? ` ${int(stale)} waited over a week.` : ""}</p> : null}
       {canReview && disputes.open ? (
         <Link href={`/projects/${projectId}/disputes`} className="mt-2 inline-block text-sm font-semibold text-pine-700 underline">

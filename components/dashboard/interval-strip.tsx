@@ -1,24 +1,14 @@
 "use client";
 
 import { CartesianGrid, ComposedChart, ErrorBar, ReferenceArea, ReferenceLine, ResponsiveContainer, Scatter, XAxis, YAxis } from "recharts";
+import { axisStart, bandStripes, intervalPhrase } from "@/components/agreement/band-stripes";
 import { formatCoefficient } from "@/lib/agreement/bands";
 import type { SummaryFigure } from "./agreement-summary";
 import { axis } from "./format";
 
-/** Landis & Koch (1977) bands as background stripes; tints follow the Agreement page. */
-const bands = [
-  { from: -1, to: 0, name: "poor", fill: "#fbeae6" },
-  { from: 0, to: 0.2, name: "slight", fill: "#fbf3e2" },
-  { from: 0.2, to: 0.4, name: "fair", fill: "#f7ebcf" },
-  { from: 0.4, to: 0.6, name: "moderate", fill: "#f1eee7" },
-  { from: 0.6, to: 0.8, name: "substantial", fill: "#e3efec" },
-  { from: 0.8, to: 1, name: "almost perfect", fill: "#d3e6e2" },
-];
-
 /** Each figure as a diamond with its 95% interval as whiskers, over the reading bands. */
 export function IntervalStrip({ figures }: { figures: SummaryFigure[] }) {
-  const lows = figures.flatMap((f) => [f.value, f.ci95?.lower]).filter((v): v is number => typeof v === "number");
-  const min = Math.max(-1, Math.min(0, ...lows.map((v) => Math.floor(v * 5) / 5)));
+  const min = axisStart(figures, 0);
   const data = figures.map((f, row) => ({
     row,
     label: f.label.replace("Krippendorff's alpha", "α"),
@@ -26,14 +16,14 @@ export function IntervalStrip({ figures }: { figures: SummaryFigure[] }) {
     err: f.value !== null && f.ci95 ? [f.value - f.ci95.lower, f.ci95.upper - f.value] : [0, 0],
   }));
   const summary = figures
-    .map((f) => `${f.label}: ${f.value === null ? "cannot be computed yet" : `${formatCoefficient(f.value)}${f.ci95 ? `, 95% CI ${formatCoefficient(f.ci95.lower)} to ${formatCoefficient(f.ci95.upper)}` : ", no interval"}`}`)
+    .map((f) => `${f.label}: ${f.value === null ? "cannot be computed yet" : `${formatCoefficient(f.value)}${intervalPhrase(f.ci95)}`}`)
     .join("; ");
   return (
     <figure>
       <div style={{ height: 44 + 40 * data.length }} role="img" aria-label={`Agreement coefficients with bootstrap 95% intervals over the Landis and Koch bands. ${summary}.`}>
         <ResponsiveContainer width="100%" height="100%">
           <ComposedChart data={data} layout="vertical" margin={{ top: 18, right: 12, bottom: 0, left: 4 }}>
-            {bands
+            {bandStripes
               .filter((b) => b.to > min)
               .map((b) => (
                 <ReferenceArea key={b.name} x1={Math.max(b.from, min)} x2={b.to} fill={b.fill} fillOpacity={1} ifOverflow="hidden" label={{ value: b.name, position: "top", fontSize: 11, fill: "#4a5263", fontWeight: 600 }} />

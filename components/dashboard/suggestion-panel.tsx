@@ -4,7 +4,7 @@ import { Bar, BarChart, CartesianGrid, ResponsiveContainer, Tooltip, XAxis, YAxi
 import type { ClassBalanceRow, SuggestionUse } from "@/db/queries/dashboard";
 import { wilsonProportion } from "@/lib/agreement/proportion";
 import { axis, gridStroke, int, pct, pctInterval, tooltipStyle } from "./format";
-import { ChartTable, Panel, Swatch, td, tdNum, th } from "./table";
+import { ChartTable, Legend, Panel, Swatch, td, tdNum, th } from "./table";
 
 const parts = [
   { key: "took", label: "Took (Enter)", colour: "#1f5f5b" },
@@ -49,11 +49,7 @@ export function SuggestionPanel({ use, classes }: { use: SuggestionUse; classes:
               </BarChart>
             </ResponsiveContainer>
           </div>
-          <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">
-            {parts.map((p) => (
-              <li key={p.key} className="inline-flex items-center gap-1.5"><Swatch colour={p.colour} />{p.label}</li>
-            ))}
-          </ul>
+          <Legend entries={parts} />
         </>
       ) : null}
       <p className="mt-2 text-xs text-ink-faint">

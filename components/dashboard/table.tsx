@@ -26,6 +26,20 @@ export function Swatch({ colour, label }: { colour: string; label?: string }) {
   return <span className="inline-block h-2.5 w-2.5 shrink-0 rounded-sm" style={{ background: colour }} aria-hidden={label ? undefined : true} aria-label={label} />;
 }
 
+/** The key under a dashboard chart: one swatch and name per series; `strong` marks the viewer's own series. */
+export function Legend({ entries }: { entries: ReadonlyArray<{ key: string; label: string; colour: string; strong?: boolean }> }) {
+  return (
+    <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">
+      {entries.map((e) => (
+        <li key={e.key} className={e.strong ? "inline-flex items-center gap-1.5 font-bold text-ink" : "inline-flex items-center gap-1.5"}>
+          <Swatch colour={e.colour} />
+          {e.label}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
 /** A dashboard panel: a one-line verdict on top, the chart, then its table. */
 export function Panel({ title, verdict, children, className = "", id }: { title: string; verdict?: ReactNode; children: ReactNode; className?: string; id?: string }) {
   const headingId = id ? `${id}-title` : undefined;

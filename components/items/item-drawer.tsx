@@ -4,21 +4,12 @@ import { useEffect } from "react";
 import useSWR from "swr";
 import { Button } from "@/components/ui/button";
 import { fetcher } from "@/components/imports/api";
-import type { ClassInfo } from "./types";
+import type { ClassInfo, ItemRow } from "./types";
 
 type Detail = {
-  item: {
-    id: number;
-    externalId: string;
-    status: string;
-    isControl: boolean;
-    labelCount: number;
-    finalClassId: number | null;
+  item: Pick<ItemRow, "id" | "externalId" | "status" | "isControl" | "labelCount" | "finalClassId" | "priorClassId" | "poolTopShare" | "fields"> & {
     finalSource: string | null;
-    priorClassId: number | null;
-    poolTopShare: number | null;
     createdAt: string;
-    fields: Record<string, unknown>;
     features: Array<{ name: string; kind: string; value: number | null; values?: Array<number | null>; width?: number }>;
     imageUrl: string | null;
   };
